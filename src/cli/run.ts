@@ -1,0 +1,97 @@
+/**
+ * The `strainwise` command line. Thin: parse arguments, call the library,
+ * print. Exit status: 0 success, 1 the work ran but failed, 2 bad input or
+ * usage (one line on stderr, nothing on stdout).
+ * @module
+ */
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { checkGradientCommand, energyCommand, type CommandOutput } from './commands.js';
+import { InputError, UsageError } from './errors.js';
+import { loadModel } from './io.js';
+
+const VERSION = '0.1.0';
+
+const HELP = `strainwise ${VERSION}: bonded molecular-mechanics energies and exact gradients
+
+usage:
+  strainwise energy FILE [--json]          energy per kind, forces, most strained terms
+  strainwise check-gradient FILE [--json]  analytic gradient against numerical derivatives
+  strainwise --help | --version
+
+FILE is a model file (format "strainwise-model", version 1; see docs/model-file.md).
+--json prints one JSON document on stdout; messages go to stderr.
+exit status: 0 success, 1 ran but failed (e.g. a wrong gradient), 2 bad input or usage.
+`;
+
+type Command = (args: readonly string[]) => CommandOutput;
+
+/** A command that reads one model file and takes only `--json`. */
+function modelCommand(name: string, run: (model: ReturnType<typeof loadModel>, json: boolean) => CommandOutput): Command {
+  return (args) => {
+    const { values, positionals } = parse(args, { json: { type: 'boolean' } });
+    if (positionals.length !== 1) {
+      throw new UsageError(`${name} needs exactly one FILE, got ${positionals.length === 0 ? 'none' : positionals.length}`);
+    }
+    return run(loadModel(positionals[0]), values.json === true);
+  };
+}
+
+const COMMANDS: Record<string, Command> = {
+  energy: modelCommand('energy', energyCommand),
+  'check-gradient': modelCommand('check-gradient', checkGradientCommand),
+};
+
+function parse<const O extends NonNullable<ParseArgsConfig['options']>>(args: readonly string[], options: O) {
+  try {
+    return parseArgs({ args: [...args], options, allowPositionals: true, strict: true });
+  } catch (e) {
+    // node's messages look like "Unknown option '--jsn'. To specify a positional ..."; keep the first sentence.
+    const message = (e as Error).message.split(/\.\s/)[0].replace(/\.$/, '');
+    throw new UsageError(message.charAt(0).toLowerCase() + message.slice(1));
+  }
+}
+
+/** Run the command line on `argv` (without node and script); returns the exit status. */
+export function run(argv: readonly string[], out = process.stdout, err = process.stderr): number {
+  try {
+    const [name, ...rest] = argv;
+    if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+      if (name === undefined) {
+        err.write(HELP);
+        return 2;
+      }
+      out.write(HELP);
+      return 0;
+    }
+    if (name === '--version') {
+      out.write(`${VERSION}\n`);
+      return 0;
+    }
+    const command = COMMANDS[name];
+    if (command === undefined) {
+      throw new UsageError(`unknown command "${name}" (commands: ${Object.keys(COMMANDS).join(', ')}; see --help)`);
+    }
+    if (rest.includes('--help') || rest.includes('-h')) {
+      out.write(HELP);
+      return 0;
+    }
+    const result = command(rest);
+    out.write(result.stdout);
+    return result.status;
+  } catch (e) {
+    if (e instanceof InputError) {
+      err.write(`strainwise: ${e.file}: ${oneLine(e.message)}\n`);
+      return 2;
+    }
+    if (e instanceof UsageError) {
+      err.write(`strainwise: ${oneLine(e.message)}\n`);
+      return 2;
+    }
+    err.write(`strainwise: internal error: ${oneLine(e instanceof Error ? e.message : String(e))} (please report this)\n`);
+    return 2;
+  }
+}
+
+function oneLine(s: string): string {
+  return s.replace(/\s*\n\s*/g, ' ');
+}

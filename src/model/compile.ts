@@ -1,0 +1,112 @@
+/**
+ * Turning validated term records (file units, degrees) into term tables
+ * (flat arrays, radians). This is the only place degrees become radians.
+ * @module
+ */
+import type { TermRecord } from './schema.js';
+import { createTable, KIND_LAYOUTS, TERM_KINDS, type TermKind, type TermTable } from '../terms/table.js';
+
+const RADIANS_PER_DEGREE = Math.PI / 180;
+
+/** A compiled table with, for each row, the index of its record in `terms[]`. */
+export interface CompiledTable {
+  readonly table: TermTable;
+  /** `source[t]` is the index in the file's `terms` of row `t`. */
+  readonly source: Int32Array;
+}
+
+/**
+ * Write the internal parameters of one record into `out` at `offset`, in the
+ * layout of {@link KIND_LAYOUTS} (angles converted from degrees to radians;
+ * `cosine-angle` stores cos θ0; `position-restraint` `flat` defaults to 0).
+ */
+export function writeParameters(term: TermRecord, out: Float64Array, offset: number): void {
+  switch (term.kind) {
+    case 'harmonic-bond':
+      out[offset] = term.k;
+      out[offset + 1] = term.r0;
+      return;
+    case 'morse-bond':
+      out[offset] = term.D;
+      out[offset + 1] = term.a;
+      out[offset + 2] = term.r0;
+      return;
+    case 'harmonic-angle':
+      out[offset] = term.k;
+      out[offset + 1] = term.theta0 * RADIANS_PER_DEGREE;
+      return;
+    case 'cosine-angle':
+      out[offset] = term.k;
+      out[offset + 1] = Math.cos(term.theta0 * RADIANS_PER_DEGREE);
+      return;
+    case 'urey-bradley':
+      out[offset] = term.k;
+      out[offset + 1] = term.s0;
+      return;
+    case 'periodic-dihedral':
+      out[offset] = term.k;
+      out[offset + 1] = term.n;
+      out[offset + 2] = term.phase * RADIANS_PER_DEGREE;
+      return;
+    case 'ryckaert-bellemans':
+      for (let m = 0; m < 6; m++) out[offset + m] = term.c[m];
+      return;
+    case 'harmonic-improper':
+      out[offset] = term.k;
+      out[offset + 1] = term.xi0 * RADIANS_PER_DEGREE;
+      return;
+    case 'position-restraint':
+      out[offset] = term.k;
+      out[offset + 1] = term.x0[0];
+      out[offset + 2] = term.x0[1];
+      out[offset + 3] = term.x0[2];
+      out[offset + 4] = term.flat ?? 0;
+      return;
+    case 'distance-restraint':
+      out[offset] = term.k;
+      out[offset + 1] = term.lower;
+      out[offset + 2] = term.upper;
+      return;
+  }
+}
+
+/**
+ * One table per kind present in `terms`, in the order of {@link TERM_KINDS}
+ * (kinds with no terms are left out). Records must already be validated.
+ */
+export function compileTerms(terms: readonly TermRecord[]): CompiledTable[] {
+  const counts = new Map<TermKind, number>();
+  for (const term of terms) counts.set(term.kind, (counts.get(term.kind) ?? 0) + 1);
+  const compiled: CompiledTable[] = [];
+  for (const kind of TERM_KINDS) {
+    const count = counts.get(kind);
+    if (count === undefined) continue;
+    const table = createTable(kind, count);
+    const source = new Int32Array(count);
+    const { arity, columns } = KIND_LAYOUTS[kind];
+    let row = 0;
+    terms.forEach((term, index) => {
+      if (term.kind !== kind) return;
+      for (let a = 0; a < arity; a++) table.atoms[row * arity + a] = term.atoms[a];
+      writeParameters(term, table.params, row * columns.length);
+      source[row] = index;
+      row++;
+    });
+    compiled.push({ table, source });
+  }
+  return compiled;
+}
+
+/**
+ * Build a table of one kind from term records written as in the model file
+ * (file units, angles in degrees), without a model: for code that makes its
+ * own terms. The records are not validated here; pass well-formed ones.
+ */
+export function tableFromRecords<K extends TermKind>(
+  kind: K,
+  records: readonly Omit<Extract<TermRecord, { kind: K }>, 'kind'>[],
+): TermTable {
+  const terms = records.map((r) => ({ ...r, kind }) as unknown as TermRecord);
+  const compiled = compileTerms(terms);
+  return compiled.length > 0 ? compiled[0].table : createTable(kind, 0);
+}

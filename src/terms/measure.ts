@@ -1,0 +1,60 @@
+/**
+ * Internal coordinates read off flat coordinates: distance, bend angle and
+ * torsion angle, with the same formulas the kernels use. Atom indices are
+ * 0-based; angles are returned in radians.
+ * @module
+ */
+
+/** Distance |x_j − x_i| between atoms i and j. */
+export function distance(x: Float64Array, i: number, j: number): number {
+  const a = 3 * i;
+  const b = 3 * j;
+  return Math.hypot(x[b] - x[a], x[b + 1] - x[a + 1], x[b + 2] - x[a + 2]);
+}
+
+/** Bend angle i–j–k at vertex j, radians in [0, π], via atan2(|u × v|, u · v). */
+export function bendAngle(x: Float64Array, i: number, j: number, k: number): number {
+  const a = 3 * i;
+  const b = 3 * j;
+  const c = 3 * k;
+  const ux = x[a] - x[b];
+  const uy = x[a + 1] - x[b + 1];
+  const uz = x[a + 2] - x[b + 2];
+  const vx = x[c] - x[b];
+  const vy = x[c + 1] - x[b + 1];
+  const vz = x[c + 2] - x[b + 2];
+  const cx = uy * vz - uz * vy;
+  const cy = uz * vx - ux * vz;
+  const cz = ux * vy - uy * vx;
+  return Math.atan2(Math.sqrt(cx * cx + cy * cy + cz * cz), ux * vx + uy * vy + uz * vz);
+}
+
+/**
+ * Torsion angle i–j–k–l, radians in (−π, π], IUPAC sign (cis 0, trans π;
+ * positive when, looking along j→k, the bond j–i turns clockwise to eclipse
+ * k–l): φ = atan2(|b2| b1 · (b2 × b3), (b1 × b2) · (b2 × b3)).
+ */
+export function torsionAngle(x: Float64Array, i: number, j: number, k: number, l: number): number {
+  const a = 3 * i;
+  const b = 3 * j;
+  const c = 3 * k;
+  const d = 3 * l;
+  const b1x = x[b] - x[a];
+  const b1y = x[b + 1] - x[a + 1];
+  const b1z = x[b + 2] - x[a + 2];
+  const b2x = x[c] - x[b];
+  const b2y = x[c + 1] - x[b + 1];
+  const b2z = x[c + 2] - x[b + 2];
+  const b3x = x[d] - x[c];
+  const b3y = x[d + 1] - x[c + 1];
+  const b3z = x[d + 2] - x[c + 2];
+  const mx = b1y * b2z - b1z * b2y;
+  const my = b1z * b2x - b1x * b2z;
+  const mz = b1x * b2y - b1y * b2x;
+  const nx = b2y * b3z - b2z * b3y;
+  const ny = b2z * b3x - b2x * b3z;
+  const nz = b2x * b3y - b2y * b3x;
+  const b2n = Math.sqrt(b2x * b2x + b2y * b2y + b2z * b2z);
+  const phi = Math.atan2(b2n * (b1x * nx + b1y * ny + b1z * nz), mx * nx + my * ny + mz * nz);
+  return phi === -Math.PI ? Math.PI : phi;
+}
