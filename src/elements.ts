@@ -2,9 +2,11 @@
  * The chemical elements: their symbols and standard atomic weights.
  *
  * Source of the weights: IUPAC abridged standard atomic weights, CIAAW 2021
- * table, from memory (recalled, not fetched; the common elements H, C, N, O,
- * F, P, S, Cl, Br, I were double-checked against the values the model-file
- * spec itself lists). Where the full table gives an interval (H, Li, B, C,
+ * table, from memory (recalled, not fetched). H, C, N, O, S and Cl agree with
+ * the values the model-file spec lists; the rest should be checked against
+ * the published table before their last digit is relied on (Zr in
+ * particular: 91.224 here; a later CIAAW revision may give 91.222).
+ * Where the full table gives an interval (H, Li, B, C,
  * N, O, Mg, Si, S, Cl, Ar, Br, Tl, Pb) the conventional value is used.
  * Elements without a standard atomic weight (no stable isotope with a
  * characteristic terrestrial composition: Tc, Pm, Po through Ac, and Np

@@ -47,3 +47,5 @@ export { energyReport } from './analysis/report.js';
 export type { EnergyReport } from './analysis/report.js';
 export { checkModelGradient } from './analysis/gradient-check.js';
 export type { ModelGradientCheck } from './analysis/gradient-check.js';
+
+export { applyRigidMotion, rotationAbout, centreOf, centre } from './geometry/transform.js';

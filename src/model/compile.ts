@@ -8,6 +8,24 @@ import { createTable, KIND_LAYOUTS, TERM_KINDS, type TermKind, type TermTable } 
 
 const RADIANS_PER_DEGREE = Math.PI / 180;
 
+/**
+ * cos of an angle in degrees, exact (0, ±1) at whole multiples of 90°, where
+ * Math.cos of the radian value is off by rounding (cos(π/2) ≈ 6e-17).
+ */
+function cosDegrees(deg: number): number {
+  return sinDegrees(deg + 90);
+}
+
+/** sin of an angle in degrees, exact at whole multiples of 90°. */
+function sinDegrees(deg: number): number {
+  const r = ((deg % 360) + 360) % 360;
+  if (r === 0) return 0;
+  if (r === 90) return 1;
+  if (r === 180) return 0;
+  if (r === 270) return -1;
+  return Math.sin(deg * RADIANS_PER_DEGREE);
+}
+
 /** A compiled table with, for each row, the index of its record in `terms[]`. */
 export interface CompiledTable {
   readonly table: TermTable;
@@ -18,7 +36,7 @@ export interface CompiledTable {
 /**
  * Write the internal parameters of one record into `out` at `offset`, in the
  * layout of {@link KIND_LAYOUTS} (angles converted from degrees to radians;
- * `cosine-angle` stores cos θ0; `position-restraint` `flat` defaults to 0).
+ * `cosine-angle` stores cos θ0, `periodic-dihedral` cos and sin of its phase; `position-restraint` `flat` defaults to 0).
  */
 export function writeParameters(term: TermRecord, out: Float64Array, offset: number): void {
   switch (term.kind) {
@@ -37,7 +55,7 @@ export function writeParameters(term: TermRecord, out: Float64Array, offset: num
       return;
     case 'cosine-angle':
       out[offset] = term.k;
-      out[offset + 1] = Math.cos(term.theta0 * RADIANS_PER_DEGREE);
+      out[offset + 1] = cosDegrees(term.theta0);
       return;
     case 'urey-bradley':
       out[offset] = term.k;
@@ -46,7 +64,8 @@ export function writeParameters(term: TermRecord, out: Float64Array, offset: num
     case 'periodic-dihedral':
       out[offset] = term.k;
       out[offset + 1] = term.n;
-      out[offset + 2] = term.phase * RADIANS_PER_DEGREE;
+      out[offset + 2] = cosDegrees(term.phase);
+      out[offset + 3] = sinDegrees(term.phase);
       return;
     case 'ryckaert-bellemans':
       for (let m = 0; m < 6; m++) out[offset + m] = term.c[m];

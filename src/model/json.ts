@@ -11,7 +11,7 @@
  * @module
  */
 
-import { type Node, type ParseErrorCode, parseTree, visit } from 'jsonc-parser';
+import { type ParseErrorCode, visit } from 'jsonc-parser';
 import { ModelError } from '../errors.js';
 
 /** A plain JSON value. */
@@ -78,7 +78,8 @@ export function describeValue(value: unknown): string {
 }
 
 function article(word: string): string {
-  return /^[AEIOU]/.test(word) ? 'an' : 'a';
+  // "a Uint8Array", "a URL": class names starting with U are read "you".
+  return /^[AEIO]/.test(word) ? 'an' : 'a';
 }
 
 function isPlainObject(value: object): boolean {
@@ -209,14 +210,12 @@ function placeAt(text: string, offset: number): string {
  *   or `comments are not allowed in JSON`; for a duplicated key with the JSON
  *   path of its object, e.g. `terms[3]: duplicated key "k"` (a duplicated key
  *   of the top-level object has no place); for a number too large, with its
- *   line and column; for text nested too deeply to read (no place).
+ *   line and column; for text nested too deeply to read (no place). A syntax
+ *   error is reported before a duplicated key or a number too large.
  */
 export function parseJsonText(text: string): JsonValue {
   try {
-    throwFirstSyntaxError(text);
-    const root: Node | undefined = parseTree(text, [], PARSE_OPTIONS);
-    if (root === undefined) throw new ModelError(placeAt(text, 0), 'expected a JSON value, got empty text');
-    const value = build(root, text, []);
+    const value = readStrictly(text);
     crossCheckWithJsonParse(text);
     return value;
   } catch (e) {
@@ -230,50 +229,101 @@ export function isStackOverflow(e: unknown): boolean {
   return e instanceof RangeError && /call stack/i.test(e.message);
 }
 
-function build(node: Node, text: string, path: PathSegment[]): JsonValue {
-  switch (node.type) {
-    case 'null':
-      return null;
-    case 'boolean':
-    case 'string':
-      return node.value as boolean | string;
-    case 'number': {
-      const raw = text.slice(node.offset, node.offset + node.length);
-      const value = Number(raw);
-      if (!JSON_NUMBER.test(raw)) throw new ModelError(placeAt(text, node.offset), `invalid number ${JSON.stringify(raw)}`);
-      if (!Number.isFinite(value)) {
-        throw new ModelError(placeAt(text, node.offset), `number ${raw} is too large (beyond the range of a double)`);
-      }
-      return value;
+type Container = 'object' | 'array';
+
+/** An object being built, with its keys so far and the key whose value comes next. */
+interface OpenObject {
+  readonly kind: 'object';
+  readonly value: Record<string, JsonValue>;
+  readonly keys: Set<string>;
+  key: string;
+}
+
+/** An array being built. */
+interface OpenArray {
+  readonly kind: 'array';
+  readonly value: JsonValue[];
+}
+
+/**
+ * One pass of jsonc-parser's event parser (its tree parser is several times
+ * slower on large files): build the value, note the first syntax error with
+ * the container it happened in, and the first duplicated key or oversized
+ * number; then throw the syntax error, else the other problem.
+ */
+function readStrictly(text: string): JsonValue {
+  const open: (OpenObject | OpenArray)[] = [];
+  const path: PathSegment[] = [];
+  let root: JsonValue = null;
+  let syntax: { code: ParseErrorCode; offset: number; length: number; inside: Container | undefined } | undefined;
+  let problem: ModelError | undefined;
+
+  /** Place `value` in the open container (or as the root); returns the segment it went under. */
+  const put = (value: JsonValue): PathSegment | undefined => {
+    const top = open[open.length - 1];
+    if (top === undefined) {
+      root = value;
+      return undefined;
     }
-    case 'array': {
-      const out: JsonValue[] = [];
-      const children = node.children ?? [];
-      for (let i = 0; i < children.length; i++) {
-        path.push(i);
-        out.push(build(children[i], text, path));
-        path.pop();
-      }
-      return out;
+    if (top.kind === 'array') {
+      top.value.push(value);
+      return top.value.length - 1;
     }
-    case 'object': {
-      const out: Record<string, JsonValue> = {};
-      const seen = new Set<string>();
-      for (const property of node.children ?? []) {
-        const [keyNode, valueNode] = property.children ?? [];
-        const key = keyNode.value as string;
-        if (seen.has(key)) throw new ModelError(formatJsonPath(path), `duplicated key ${JSON.stringify(key)}`);
-        seen.add(key);
-        path.push(key);
-        setOwn(out, key, build(valueNode, text, path));
-        path.pop();
-      }
-      return out;
-    }
-    default:
-      // A 'property' node never appears here; treat as a parser fault.
-      throw new ModelError(placeAt(text, node.offset), 'expected a JSON value');
+    setOwn(top.value, top.key, value);
+    return top.key;
+  };
+  const begin = (container: OpenObject | OpenArray) => {
+    const segment = put(container.value);
+    if (segment !== undefined) path.push(segment);
+    open.push(container);
+  };
+  const end = () => {
+    open.pop();
+    if (open.length > 0) path.pop();
+  };
+
+  visit(
+    text,
+    {
+      onObjectBegin: () => begin({ kind: 'object', value: {}, keys: new Set(), key: '' }),
+      onObjectEnd: end,
+      onArrayBegin: () => begin({ kind: 'array', value: [] }),
+      onArrayEnd: end,
+      onObjectProperty: (key: string) => {
+        const top = open[open.length - 1];
+        if (top?.kind !== 'object') return;
+        if (top.keys.has(key) && problem === undefined) {
+          problem = new ModelError(formatJsonPath(path), `duplicated key ${JSON.stringify(key)}`);
+        }
+        top.keys.add(key);
+        top.key = key;
+      },
+      onLiteralValue: (value: unknown, offset: number, length: number) => {
+        if (typeof value !== 'number') {
+          put(value as null | boolean | string);
+          return;
+        }
+        const raw = text.slice(offset, offset + length);
+        const number = Number(raw);
+        if (problem === undefined && !JSON_NUMBER.test(raw)) {
+          problem = new ModelError(placeAt(text, offset), `invalid number ${JSON.stringify(raw)}`);
+        } else if (problem === undefined && !Number.isFinite(number)) {
+          problem = new ModelError(placeAt(text, offset), `number ${raw} is too large (beyond the range of a double)`);
+        }
+        put(number);
+      },
+      onError: (code: ParseErrorCode, offset: number, length: number) => {
+        if (syntax === undefined) syntax = { code, offset, length, inside: open[open.length - 1]?.kind };
+      },
+    },
+    PARSE_OPTIONS,
+  );
+  if (syntax !== undefined) {
+    const { offset, detail } = describeSyntaxError(text, syntax.code, syntax.offset, syntax.length, syntax.inside);
+    throw new ModelError(placeAt(text, offset), detail);
   }
+  if (problem !== undefined) throw problem;
+  return root;
 }
 
 /**
@@ -288,30 +338,6 @@ function crossCheckWithJsonParse(text: string): void {
     const position = /position (\d+)/.exec(message);
     throw new ModelError(position ? placeAt(text, Number(position[1])) : '', `not valid JSON (${message})`);
   }
-}
-
-type Container = 'object' | 'array';
-
-/** Parse once with the event parser, tracking the open containers, and throw at the first syntax error. */
-function throwFirstSyntaxError(text: string): void {
-  const open: Container[] = [];
-  let first: { code: ParseErrorCode; offset: number; length: number; inside: Container | undefined } | undefined;
-  visit(
-    text,
-    {
-      onObjectBegin: () => void open.push('object'),
-      onObjectEnd: () => void open.pop(),
-      onArrayBegin: () => void open.push('array'),
-      onArrayEnd: () => void open.pop(),
-      onError: (code, offset, length) => {
-        if (first === undefined) first = { code, offset, length, inside: open[open.length - 1] };
-      },
-    },
-    PARSE_OPTIONS,
-  );
-  if (first === undefined) return;
-  const { offset, detail } = describeSyntaxError(text, first.code, first.offset, first.length, first.inside);
-  throw new ModelError(placeAt(text, offset), detail);
 }
 
 /** The significant character before `offset` (skipping JSON whitespace), or `''`. */

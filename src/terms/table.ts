@@ -48,14 +48,16 @@ export interface KindLayout {
 
 /**
  * Internal parameter layout of each kind. Angles are radians here (the model
- * file gives degrees); everything else is as in the file.
+ * file gives degrees), or their cosine and sine where the kernel needs only
+ * those; everything else is as in the file.
  *
  * - `harmonic-bond` [k, r0]: E = ½ k (r − r0)²
  * - `morse-bond` [D, a, r0]: E = D [1 − exp(−a (r − r0))]²
  * - `harmonic-angle` [k, theta0]: E = ½ k (θ − θ0)²
  * - `cosine-angle` [k, cosTheta0]: E = ½ k (cos θ − cos θ0)²
  * - `urey-bradley` [k, s0]: E = ½ k (|x_k − x_i| − s0)² (middle atom unused)
- * - `periodic-dihedral` [k, n, phase]: E = k [1 + cos(n φ − phase)]
+ * - `periodic-dihedral` [k, n, cosPhase, sinPhase]: E = k [1 + cos(n φ − phase)]
+ *   (the phase kept as its cosine and sine, so the kernel needs no trigonometry)
  * - `ryckaert-bellemans` [c0..c5]: E = Σ_m c_m cos^m(φ − π)
  * - `harmonic-improper` [k, xi0]: E = ½ k Δ², Δ = φ − ξ0 wrapped into [−π, π)
  * - `position-restraint` [k, x0, y0, z0, flat]: E = ½ k max(0, |x_i − x0| − flat)²
@@ -67,7 +69,7 @@ export const KIND_LAYOUTS: Readonly<Record<TermKind, KindLayout>> = {
   'harmonic-angle': { arity: 3, columns: ['k', 'theta0'] },
   'cosine-angle': { arity: 3, columns: ['k', 'cosTheta0'] },
   'urey-bradley': { arity: 3, columns: ['k', 's0'] },
-  'periodic-dihedral': { arity: 4, columns: ['k', 'n', 'phase'] },
+  'periodic-dihedral': { arity: 4, columns: ['k', 'n', 'cosPhase', 'sinPhase'] },
   'ryckaert-bellemans': { arity: 4, columns: ['c0', 'c1', 'c2', 'c3', 'c4', 'c5'] },
   'harmonic-improper': { arity: 4, columns: ['k', 'xi0'] },
   'position-restraint': { arity: 1, columns: ['k', 'x0', 'y0', 'z0', 'flat'] },

@@ -35,7 +35,8 @@ const enum Form {
 }
 
 /**
- * Periodic dihedral, E = k [1 + cos(n φ − phase)], params [k, n, phase (rad)].
+ * Periodic dihedral, E = k [1 + cos(n φ − phase)], params
+ * [k, n, cos phase, sin phase] (n a whole number ≥ 1).
  * dE/dφ = −k n sin(n φ − phase). See {@link Kernel} for the arguments.
  */
 export function accumulatePeriodicDihedrals(
@@ -120,10 +121,24 @@ function torsions(
     let e: number;
     let dEdPhi: number;
     if (form === Form.Periodic) {
+      // cos(nφ − phase) = cos nφ cos phase + sin nφ sin phase, with cos nφ and
+      // sin nφ from cos φ and sin φ by the angle-addition recurrence: no trig.
+      const hyp = Math.sqrt(cosTerm * cosTerm + sinTerm * sinTerm);
+      const c1 = hyp > 0 ? cosTerm / hyp : 1;
+      const s1 = hyp > 0 ? sinTerm / hyp : 0;
+      const n = params[p + 1];
+      let cn = c1;
+      let sn = s1;
+      for (let m = 1; m < n; m++) {
+        const c = cn * c1 - sn * s1;
+        sn = sn * c1 + cn * s1;
+        cn = c;
+      }
       const kf = params[p];
-      const arg = params[p + 1] * phi - params[p + 2];
-      e = kf * (1 + Math.cos(arg));
-      dEdPhi = -kf * params[p + 1] * Math.sin(arg);
+      const cp = params[p + 2];
+      const sp = params[p + 3];
+      e = kf * (1 + cn * cp + sn * sp);
+      dEdPhi = -kf * n * (sn * cp - cn * sp);
     } else if (form === Form.RyckaertBellemans) {
       const hyp = Math.sqrt(cosTerm * cosTerm + sinTerm * sinTerm);
       const cphi = hyp > 0 ? cosTerm / hyp : 1;
