@@ -37,6 +37,31 @@ export function accumulateUreyBradley(
   return stretch(x, table, 0, 2, gradient, energies);
 }
 
+/**
+ * Add f·d to atom j's gradient and −f·d to atom i's (i, j are offsets 3·atom):
+ * the gradient of any function of r = |d|, d = x_j − x_i, with f = (dE/dr)/r.
+ * Small enough that the engine inlines it into the kernels' loops.
+ */
+export function addPairGradient(
+  gradient: Float64Array,
+  i: number,
+  j: number,
+  f: number,
+  dx: number,
+  dy: number,
+  dz: number,
+): void {
+  const gx = f * dx;
+  const gy = f * dy;
+  const gz = f * dz;
+  gradient[j] += gx;
+  gradient[j + 1] += gy;
+  gradient[j + 2] += gz;
+  gradient[i] -= gx;
+  gradient[i + 1] -= gy;
+  gradient[i + 2] -= gz;
+}
+
 /** Harmonic stretch between columns `ci` and `cj` of each term's atoms. */
 function stretch(
   x: Float64Array,
@@ -64,15 +89,7 @@ function stretch(
     if (gradient !== undefined) {
       // dE/dd = k (r − r0) d / r; with r0 = 0 this is k d (defined at r = 0 too).
       const f = r0 === 0 ? k : r > 0 ? (k * dr) / r : 0;
-      const gx = f * dx;
-      const gy = f * dy;
-      const gz = f * dz;
-      gradient[j] += gx;
-      gradient[j + 1] += gy;
-      gradient[j + 2] += gz;
-      gradient[i] -= gx;
-      gradient[i + 1] -= gy;
-      gradient[i + 2] -= gz;
+      addPairGradient(gradient, i, j, f, dx, dy, dz);
     }
   }
   return total;
@@ -108,15 +125,7 @@ export function accumulateMorseBonds(
     if (energies !== undefined) energies[t] = e;
     if (gradient !== undefined && r > 0) {
       const f = (2 * D * a * ex * one) / r;
-      const gx = f * dx;
-      const gy = f * dy;
-      const gz = f * dz;
-      gradient[j] += gx;
-      gradient[j + 1] += gy;
-      gradient[j + 2] += gz;
-      gradient[i] -= gx;
-      gradient[i + 1] -= gy;
-      gradient[i + 2] -= gz;
+      addPairGradient(gradient, i, j, f, dx, dy, dz);
     }
   }
   return total;

@@ -3,6 +3,7 @@
  * flat-bottomed distance restraints between pairs.
  * @module
  */
+import { addPairGradient } from './bond.js';
 import type { TermTable } from './table.js';
 
 /**
@@ -75,13 +76,7 @@ export function accumulateDistanceRestraints(
     total += e;
     if (energies !== undefined) energies[t] = e;
     if (gradient !== undefined && dr !== 0 && r > 0) {
-      const f = (k * dr) / r;
-      gradient[j] += f * dx;
-      gradient[j + 1] += f * dy;
-      gradient[j + 2] += f * dz;
-      gradient[i] -= f * dx;
-      gradient[i + 1] -= f * dy;
-      gradient[i + 2] -= f * dz;
+      addPairGradient(gradient, i, j, (k * dr) / r, dx, dy, dz);
     }
   }
   return total;

@@ -19,7 +19,7 @@ import { checkTerm, evaluate, makeTable, report, singleTerm } from './terms.js';
 import type { Row } from './terms.js';
 
 /** How many random cases the gradient check runs per kind. */
-export const GRADIENT_CASES = 400;
+const GRADIENT_CASES = 400;
 /** How many random rigid motions the invariance checks run per kind. */
 const MOTION_CASES = 200;
 
@@ -49,6 +49,16 @@ export function randomPoolTable(kind: TermKind, rng: Random, terms: number): { x
     rows.push({ atoms, params: PARAMS[kind](rng) });
   }
   return { x, table: makeTable(kind, rows) };
+}
+
+/** A one-term table holding row `t` of `table`. */
+function rowTable(table: TermTable, t: number): TermTable {
+  return makeTable(table.kind, [
+    {
+      atoms: Array.from(table.atoms.subarray(t * table.arity, (t + 1) * table.arity)),
+      params: Array.from(table.params.subarray(t * table.width, (t + 1) * table.width)),
+    },
+  ]);
 }
 
 /** Registers the shared kernel checks for `kind` (see the module comment). */
@@ -94,12 +104,7 @@ export function describeKernelProperties(kind: TermKind, options: KernelProperty
         let sum = 0;
         for (let t = 0; t < table.count; t++) {
           sum += energies[t];
-          const one = makeTable(kind, [
-            {
-              atoms: Array.from(table.atoms.subarray(t * table.arity, (t + 1) * table.arity)),
-              params: Array.from(table.params.subarray(t * table.width, (t + 1) * table.width)),
-            },
-          ]);
+          const one = rowTable(table, t);
           expect(energies[t]).toBe(kernel(x, one));
         }
         expect(sum).toBeCloseTo(total, 12);
@@ -147,12 +152,7 @@ export function describeKernelProperties(kind: TermKind, options: KernelProperty
         let energy = 0;
         const gradient = new Float64Array(x.length);
         for (let t = 0; t < table.count; t++) {
-          const one = makeTable(kind, [
-            {
-              atoms: Array.from(table.atoms.subarray(t * table.arity, (t + 1) * table.arity)),
-              params: Array.from(table.params.subarray(t * table.width, (t + 1) * table.width)),
-            },
-          ]);
+          const one = rowTable(table, t);
           const part = evaluate(one, x);
           energy += part.energy;
           for (let c = 0; c < x.length; c++) gradient[c] += part.gradient[c];
