@@ -32,7 +32,8 @@ export function bendAngle(x: Float64Array, i: number, j: number, k: number): num
 /**
  * Torsion angle i–j–k–l, radians in (−π, π], IUPAC sign (cis 0, trans π;
  * positive when, looking along j→k, the bond j–i turns clockwise to eclipse
- * k–l): φ = atan2(|b2| b1 · (b2 × b3), (b1 × b2) · (b2 × b3)).
+ * k–l): φ = atan2(|b2| b1 · (b2 × b3), (b1 × b2) · (b2 × b3)), the first
+ * argument evaluated as ((m × n) · b2) / |b2| to keep its digits near lines.
  */
 export function torsionAngle(x: Float64Array, i: number, j: number, k: number, l: number): number {
   const a = 3 * i;
@@ -55,6 +56,9 @@ export function torsionAngle(x: Float64Array, i: number, j: number, k: number, l
   const ny = b2z * b3x - b2x * b3z;
   const nz = b2x * b3y - b2y * b3x;
   const b2n = Math.sqrt(b2x * b2x + b2y * b2y + b2z * b2z);
-  const phi = Math.atan2(b2n * (b1x * nx + b1y * ny + b1z * nz), mx * nx + my * ny + mz * nz);
+  // |b2| b1 · n as ((m × n) · b2) / |b2|: accurate when both bond angles are near 180°
+  const sin =
+    b2n > 0 ? ((my * nz - mz * ny) * b2x + (mz * nx - mx * nz) * b2y + (mx * ny - my * nx) * b2z) / b2n : 0;
+  const phi = Math.atan2(sin, mx * nx + my * ny + mz * nz);
   return phi === -Math.PI ? Math.PI : phi;
 }

@@ -31,10 +31,18 @@ export function accumulatePositionRestraints(
     const r = Math.sqrt(dx * dx + dy * dy + dz * dz);
     const over = r - flat;
     let e = 0;
-    if (over > 0) {
+    if (flat === 0) {
+      // plain ½ k |d|²: gradient k·d, defined everywhere (even where r² underflows)
+      e = 0.5 * k * r * r;
+      if (gradient !== undefined) {
+        gradient[i] += k * dx;
+        gradient[i + 1] += k * dy;
+        gradient[i + 2] += k * dz;
+      }
+    } else if (over > 0) {
       e = 0.5 * k * over * over;
       if (gradient !== undefined) {
-        const f = flat === 0 ? k : (k * over) / r;
+        const f = (k * over) / r;
         gradient[i] += f * dx;
         gradient[i + 1] += f * dy;
         gradient[i + 2] += f * dz;

@@ -7,6 +7,9 @@
  * n = b2 × b3:
  *
  *   φ = atan2(|b2| b1 · n, m · n)                      (exact at 0 and π)
+ *
+ * with |b2| b1 · n evaluated as ((m × n) · b2) / |b2|, which keeps its
+ * digits when both bond angles are near 180°.
  *   dφ/dx_i = −|b2| / |m|² · m
  *   dφ/dx_l = +|b2| / |n|² · n
  *   dφ/dx_j = q dφ/dx_l − (1 + p) dφ/dx_i
@@ -113,7 +116,11 @@ function torsions(
     const b22 = b2x * b2x + b2y * b2y + b2z * b2z;
     const b2n = Math.sqrt(b22);
     const cosTerm = mx * nx + my * ny + mz * nz;
-    const sinTerm = b2n * (b1x * nx + b1y * ny + b1z * nz);
+    // |b2| b1 · n, computed as ((m × n) · b2) / |b2| (the same number, since
+    // m × n = (b1 · n) b2): it keeps its digits when both bond angles are
+    // near linear, where the dot product b1 · n cancels.
+    const sinTerm =
+      b2n > 0 ? ((my * nz - mz * ny) * b2x + (mz * nx - mx * nz) * b2y + (mx * ny - my * nx) * b2z) / b2n : 0;
     let phi = Math.atan2(sinTerm, cosTerm);
     if (phi === -Math.PI) phi = Math.PI;
 
