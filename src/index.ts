@@ -49,3 +49,13 @@ export { checkModelGradient } from './analysis/gradient-check.js';
 export type { ModelGradientCheck } from './analysis/gradient-check.js';
 
 export { applyRigidMotion, rotationAbout, centreOf, centre } from './geometry/transform.js';
+
+export * from './optimize/index.js';
+export { createProjection } from './constraints/projection.js';
+export type { ConstraintProjection, ConstraintViolation, DistanceConstraint, ProjectionOptions } from './constraints/projection.js';
+export { projectionForModel } from './constraints/from-model.js';
+export type { ModelProjectionOptions } from './constraints/from-model.js';
+export { relaxModel } from './model/relax.js';
+export type { RelaxOptions, RelaxResult } from './model/relax.js';
+export { writeFileWhole } from './io/write-file.js';
+export { xyzFrame } from './io/xyz.js';

@@ -8,6 +8,7 @@ import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { checkGradientCommand, energyCommand, type CommandOutput } from './commands.js';
 import { InputError, UsageError } from './errors.js';
 import { loadModel } from './io.js';
+import { METHODS, minimizeCommand, writerFor } from './minimize.js';
 
 const VERSION = '0.1.0';
 
@@ -16,11 +17,15 @@ const HELP = `strainwise ${VERSION}: bonded molecular-mechanics energies and exa
 usage:
   strainwise energy FILE [--json]          energy per kind, forces, most strained terms
   strainwise check-gradient FILE [--json]  analytic gradient against numerical derivatives
+  strainwise minimize FILE -o OUT [--method lbfgs|cg|sd|fire] [--max-force X]
+             [--max-iterations N] [--trajectory T.xyz --every K] [--json]
+                                           relax the structure; OUT is .json (model) or .xyz
   strainwise --help | --version
 
 FILE is a model file (format "strainwise-model", version 1; see docs/model-file.md).
 --json prints one JSON document on stdout; messages go to stderr.
-exit status: 0 success, 1 ran but failed (e.g. a wrong gradient), 2 bad input or usage.
+exit status: 0 success, 1 ran but failed (a wrong gradient, no convergence), 2 bad input or usage.
+--max-force is in the model's units (default 0.01 kcal/mol/Å, converted).
 `;
 
 type Command = (args: readonly string[]) => CommandOutput;
@@ -36,9 +41,60 @@ function modelCommand(name: string, run: (model: ReturnType<typeof loadModel>, j
   };
 }
 
+/** A number option: finite, and > 0 unless `zeroAllowed`, or an integer when `integer`. */
+function numberOption(name: string, text: string | undefined, kind: 'positive' | 'count'): number | undefined {
+  if (text === undefined) return undefined;
+  const value = Number(text);
+  const good = text.trim() !== '' && Number.isFinite(value) && (kind === 'positive' ? value > 0 : Number.isInteger(value) && value >= 0);
+  if (!good) {
+    throw new UsageError(`${name}: expected ${kind === 'positive' ? 'a number > 0' : 'a whole number ≥ 0'}, got "${text}"`);
+  }
+  return value;
+}
+
+const minimize: Command = (args) => {
+  const { values, positionals } = parse(args, {
+    json: { type: 'boolean' },
+    output: { type: 'string', short: 'o' },
+    method: { type: 'string' },
+    'max-force': { type: 'string' },
+    'max-iterations': { type: 'string' },
+    trajectory: { type: 'string' },
+    every: { type: 'string' },
+  });
+  if (positionals.length !== 1) {
+    throw new UsageError(`minimize needs exactly one FILE, got ${positionals.length === 0 ? 'none' : positionals.length}`);
+  }
+  const output = values.output as string | undefined;
+  if (output === undefined) throw new UsageError('minimize needs -o OUT (the file to write)');
+  writerFor(output);
+  const method = (values.method as string | undefined) ?? 'lbfgs';
+  if (!(METHODS as readonly string[]).includes(method)) {
+    throw new UsageError(`--method: unknown method "${method}" (known: ${METHODS.join(', ')})`);
+  }
+  const every = numberOption('--every', values.every as string | undefined, 'count') ?? 1;
+  if (every < 1) throw new UsageError('--every: expected a whole number ≥ 1, got "0"');
+  const model = loadModel(positionals[0]);
+  return minimizeCommand(
+    model,
+    {
+      file: positionals[0],
+      output,
+      method: method as (typeof METHODS)[number],
+      maxForce: numberOption('--max-force', values['max-force'] as string | undefined, 'positive'),
+      maxIterations: numberOption('--max-iterations', values['max-iterations'] as string | undefined, 'count') ?? 10000,
+      json: values.json === true,
+      trajectory: values.trajectory as string | undefined,
+      every,
+    },
+    process.stderr,
+  );
+};
+
 const COMMANDS: Record<string, Command> = {
   energy: modelCommand('energy', energyCommand),
   'check-gradient': modelCommand('check-gradient', checkGradientCommand),
+  minimize,
 };
 
 function parse<const O extends NonNullable<ParseArgsConfig['options']>>(args: readonly string[], options: O) {

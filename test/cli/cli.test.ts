@@ -3,7 +3,7 @@
  * the tests, see test/setup/build-once.ts). Contract: ../shared/spec/cli.md.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync, mkdirSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -121,3 +121,51 @@ describe('--help and --version', () => {
 });
 
 mkdirSync(join(dir, 'sub'), { recursive: true });
+
+describe('strainwise minimize', () => {
+  it('--json reports the run and writes a model file whose energy matches', () => {
+    const out = join(dir, 'relaxed.json');
+    const r = cli('minimize', every, '-o', out, '--json', '--max-force', '0.001');
+    expect(r.status).toBe(0);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.converged).toBe(true);
+    expect(doc.method).toBe('lbfgs');
+    expect(doc.output).toBe(out);
+    expect(doc.finalEnergy).toBeLessThan(doc.initialEnergy);
+    expect(doc.evaluations).toBeGreaterThanOrEqual(doc.iterations);
+    const m = parseModel(readFileSync(out, 'utf8'));
+    const g = new Float64Array(3 * m.atomCount);
+    expect(m.energy(m.coordinates, g)).toBe(doc.finalEnergy);
+    let max = 0;
+    for (let a = 0; a < m.atomCount; a++) max = Math.max(max, Math.sqrt(g[3 * a] ** 2 + g[3 * a + 1] ** 2 + g[3 * a + 2] ** 2));
+    expect(max).toBeLessThanOrEqual(0.001);
+    expect(max).toBe(doc.maxForce);
+  });
+
+  it('keeps frozen atoms bit-for-bit and fixed distances to 1e-10', () => {
+    const file0 = { ...structuredClone(EVERY_KIND), frozen: [0, 1], constraints: [{ kind: 'fixed-distance', atoms: [2, 3], length: 1.43 }] };
+    const path = file('held.json', file0);
+    const r = cli('minimize', path, '-o', path, '--json', '--method', 'cg');
+    expect(r.status).toBe(0);
+    const m = parseModel(readFileSync(path, 'utf8'));
+    const x = m.coordinates;
+    expect(Array.from(x.subarray(0, 6))).toEqual([...EVERY_KIND.coordinates[0], ...EVERY_KIND.coordinates[1]]);
+    const r23 = Math.hypot(x[9] - x[6], x[10] - x[7], x[11] - x[8]);
+    expect(Math.abs(r23 - 1.43) / 1.43).toBeLessThanOrEqual(1e-10);
+  });
+
+  it('exit 1 when not converged, and the output is still written', () => {
+    const out = join(dir, 'partial.xyz');
+    const r = cli('minimize', every, '-o', out, '--max-iterations', '2', '--json');
+    expect(r.status).toBe(1);
+    expect(JSON.parse(r.stdout).converged).toBe(false);
+    expect(readFileSync(out, 'utf8').split('\n')[0]).toBe('9');
+  });
+
+  it('refuses an unknown output extension before any work', () => {
+    const r = cli('minimize', every, '-o', join(dir, 'x.mol2'));
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toMatch(/cannot write "\.mol2" files/);
+  });
+});

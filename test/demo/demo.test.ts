@@ -19,5 +19,6 @@ describe('the demo (npm start)', () => {
     expect(r.stdout).toMatch(/total\s+28\s/);
     expect(r.stdout).toContain('result: gradient correct');
     expect(r.stdout).toContain('illustrative parameters');
+    expect(r.stdout).toMatch(/converged after \d+ steps/);
   });
 });
