@@ -41,7 +41,7 @@ function modelCommand(name: string, run: (model: ReturnType<typeof loadModel>, j
   };
 }
 
-/** A number option: finite, and > 0 unless `zeroAllowed`, or an integer when `integer`. */
+/** A number option's value: `positive` a finite number > 0, `count` a whole number ≥ 0; undefined when not given. */
 function numberOption(name: string, text: string | undefined, kind: 'positive' | 'count'): number | undefined {
   if (text === undefined) return undefined;
   const value = Number(text);
