@@ -96,7 +96,7 @@ export function checkGradientCommand(model: Model, json: boolean): CommandOutput
       maxRelError: check.maxRelError,
       worst,
       ok,
-      tolerance: 1e-6,
+      tolerance: check.tolerance,
       coordinates: 3 * model.atomCount,
       evaluations: check.evaluations,
     };
@@ -106,7 +106,7 @@ export function checkGradientCommand(model: Model, json: boolean): CommandOutput
   const lines: string[] = [];
   lines.push(`analytic gradient against numerical derivatives (fourth-order central differences), ${3 * model.atomCount} coordinates`);
   lines.push(`largest absolute error: ${num(check.maxAbsError, 3)} ${u.force}`);
-  lines.push(`largest relative error: ${num(check.maxRelError, 3)} (limit 1e-6; relative to max(1, largest gradient component))`);
+  lines.push(`largest relative error: ${num(check.maxRelError, 3)} (limit ${num(check.tolerance, 1)}; relative to max(1, largest gradient component))`);
   if (worst !== null && check.worst !== null) {
     lines.push(
       `worst coordinate: atom ${atomLabel(model, worst.atom)} ${worst.axis}, analytic ${num(check.worst.analytic, 10)}, ` +
