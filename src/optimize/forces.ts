@@ -17,7 +17,8 @@ export function maxAtomNorm(v: Float64Array): number {
     const b = i + 1 < n ? v[i + 1] : 0;
     const c = i + 2 < n ? v[i + 2] : 0;
     const s = a * a + b * b + c * c;
-    if (!(s <= largest)) largest = s;
+    if (s !== s) return NaN;
+    if (s > largest) largest = s;
   }
   return Math.sqrt(largest);
 }

@@ -9,4 +9,6 @@ export { lineSearch } from './line-search.js';
 export type { LineSearchOptions, LineSearchReason, LineSearchResult } from './line-search.js';
 export { minimize } from './minimize.js';
 export type { IterationInfo, MinimizeMethod, MinimizeOptions, MinimizeReason, MinimizeResult } from './minimize.js';
-export type { ObjectiveFunction, Projection } from './types.js';
+export type { ObjectiveFunction, Preconditioner, Projection } from './types.js';
+export { createInitialMatrix } from './initial-matrix.js';
+export type { InitialMatrix, InitialMatrixForm } from './initial-matrix.js';

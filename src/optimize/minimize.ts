@@ -6,9 +6,10 @@
  * @module
  */
 import { maxAtomNorm, rmsAtomNorm } from './forces.js';
+import { createInitialMatrix, type InitialMatrixForm } from './initial-matrix.js';
 import { lineSearch } from './line-search.js';
 import type { LineSearchResult } from './line-search.js';
-import type { ObjectiveFunction, Projection } from './types.js';
+import type { ObjectiveFunction, Preconditioner, Projection } from './types.js';
 
 /** The minimization methods offered by {@link minimize}. */
 export type MinimizeMethod = 'lbfgs' | 'cg' | 'sd' | 'fire';
@@ -72,7 +73,16 @@ export interface MinimizeOptions {
    * coordinates of very different stiffness (stiff bonds beside soft
    * torsions) and needs markedly fewer evaluations on such problems.
    */
-  scaling?: 'diagonal' | 'scalar';
+  scaling?: InitialMatrixForm;
+  /**
+   * L-BFGS: a change of variables that makes the problem better conditioned
+   * (for a model, `relaxModel` builds one from its bond and angle terms). It
+   * is rebuilt at the current point every `preconditionerRefresh` accepted
+   * steps; when it cannot be built the run goes on without it.
+   */
+  preconditioner?: Preconditioner;
+  /** L-BFGS: accepted steps between rebuilds of the preconditioner; default 50. */
+  preconditionerRefresh?: number;
   /** FIRE: largest time step; default 1. The first step is a tenth of it. */
   dtMax?: number;
   /** What may move (frozen coordinates, fixed distances); applied to every trial point and gradient. */
@@ -186,11 +196,12 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
   const history = count('history', options.history, 10, 1, false);
   const dtMax = positive('dtMax', options.dtMax, 1);
   const scaling = options.scaling ?? 'diagonal';
-  if (scaling !== 'diagonal' && scaling !== 'scalar') {
-    throw new RangeError(`scaling: expected 'diagonal' or 'scalar', got ${show(scaling)}`);
+  if (scaling !== 'diagonal' && scaling !== 'scalar' && scaling !== 'block') {
+    throw new RangeError(`scaling: expected 'block', 'diagonal' or 'scalar', got ${show(scaling)}`);
   }
-  const diagonal = scaling === 'diagonal';
   const { projection, onIteration, signal } = options;
+  const refresh = count('preconditionerRefresh', options.preconditionerRefresh, 50, 1, true);
+  let preconditioner = method === 'lbfgs' ? options.preconditioner : undefined;
   if (onIteration !== undefined && typeof onIteration !== 'function') {
     throw new RangeError(`onIteration: expected a function, got ${show(onIteration)}`);
   }
@@ -239,8 +250,15 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       Y.push(new Float64Array(n));
     }
   }
+  let spareS: Float64Array = new Float64Array(method === 'lbfgs' ? n : 0);
+  let spareY: Float64Array = new Float64Array(method === 'lbfgs' ? n : 0);
   let pairs = 0;
-  const B0 = new Float64Array(method === 'lbfgs' && diagonal ? n : 0);
+  const H0 = createInitialMatrix(method === 'lbfgs' ? scaling : 'scalar', method === 'lbfgs' ? n : 0);
+  // With a preconditioner, H0 is learned from the pairs in whitened form (z = Lᵀ Π x).
+  const H0z = createInitialMatrix('scalar', 0);
+  const zY = new Float64Array(preconditioner ? n : 0);
+  let sinceRefresh = 0;
+  if (preconditioner && !preconditioner.update(x)) preconditioner = undefined;
   let newest = -1;
   let cgSinceRestart = 0;
   let cgPrevStep = 0;
@@ -274,66 +292,123 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
   const acceptable = (r: LineSearchResult): boolean =>
     r.ok || (r.evaluations > 0 && r.reason !== 'non-finite' && r.reason !== 'projection-failed' && r.value < f && allFinite(gT));
 
+  /**
+   * d = −H g by the two-loop recursion (Nocedal and Wright 2006, Algorithm
+   * 7.4), with each update fused with the next inner product so that every
+   * pass over the vectors does one axpy and one dot product.
+   */
   const lbfgsDirection = (): void => {
-    for (let i = 0; i < n; i++) d[i] = -g[i];
-    if (pairs === 0) return;
+    if (pairs === 0) {
+      for (let i = 0; i < n; i++) d[i] = -g[i];
+      if (preconditioner) {
+        // d = −P⁻¹ g: the model's own Newton-like step
+        preconditioner.whiten(d, zY);
+        preconditioner.unwhiten(zY, d);
+      }
+      return;
+    }
     let k = newest;
+    let acc = 0;
+    {
+      const s = S[k];
+      for (let i = 0; i < n; i++) {
+        const v = -g[i];
+        d[i] = v;
+        acc += s[i] * v;
+      }
+    }
     for (let j = 0; j < pairs; j++) {
-      const a = rho[k] * dot(S[k], d);
+      const a = rho[k] * acc;
       alpha[k] = a;
       const y = Y[k];
-      for (let i = 0; i < n; i++) d[i] -= a * y[i];
-      k = (k - 1 + history) % history;
+      if (j < pairs - 1) {
+        k = (k - 1 + history) % history;
+        const s = S[k];
+        acc = 0;
+        for (let i = 0; i < n; i++) {
+          const v = d[i] - a * y[i];
+          d[i] = v;
+          acc += s[i] * v;
+        }
+      } else {
+        for (let i = 0; i < n; i++) d[i] -= a * y[i];
+      }
     }
-    if (diagonal) {
-      for (let i = 0; i < n; i++) d[i] /= B0[i];
+    if (preconditioner) {
+      preconditioner.whiten(d, zY);
+      H0z.apply(zY);
+      preconditioner.unwhiten(zY, d);
     } else {
-      const sy = 1 / rho[newest];
-      const gamma = sy / dot(Y[newest], Y[newest]);
-      for (let i = 0; i < n; i++) d[i] *= gamma;
+      H0.apply(d);
     }
-    k = (newest - pairs + 1 + history) % history;
+    // k is now the oldest pair
+    {
+      const y = Y[k];
+      acc = 0;
+      for (let i = 0; i < n; i++) acc += y[i] * d[i];
+    }
     for (let j = 0; j < pairs; j++) {
-      const b = rho[k] * dot(Y[k], d);
+      const c = alpha[k] - rho[k] * acc;
       const s = S[k];
-      const a = alpha[k];
-      for (let i = 0; i < n; i++) d[i] += (a - b) * s[i];
-      k = (k + 1) % history;
+      if (j < pairs - 1) {
+        k = (k + 1) % history;
+        const y = Y[k];
+        acc = 0;
+        for (let i = 0; i < n; i++) {
+          const v = d[i] + c * s[i];
+          d[i] = v;
+          acc += y[i] * v;
+        }
+      } else {
+        for (let i = 0; i < n; i++) d[i] += c * s[i];
+      }
     }
   };
 
+  /** Teach H0 the pair (s, y), in whitened form when preconditioned. */
+  const learn = (s: Float64Array, y: Float64Array, sy: number, yy: number): void => {
+    if (!preconditioner) {
+      H0.update(s, y, sy, yy);
+      return;
+    }
+    // γ = sᵀy / ŷᵀŷ with ŷ = L⁻¹ Π y (sᵀy is the same in both variables);
+    // on molecule-like models the diagonal form learned in z did no better
+    // and costs one more triangular sweep per step.
+    preconditioner.whiten(y, zY);
+    let zyy = 0;
+    for (let i = 0; i < n; i++) zyy += zY[i] * zY[i];
+    H0z.update(s, zY, sy, zyy);
+  };
+
   const storePair = (): void => {
-    const slot = (newest + 1) % history;
-    const s = S[slot];
-    const y = Y[slot];
+    // Written into the spare pair first, so that a rejected pair never
+    // overwrites the oldest stored one.
+    const s = spareS;
+    const y = spareY;
     let sy = 0;
     let yy = 0;
     for (let i = 0; i < n; i++) {
-      s[i] = xT[i] - x[i];
-      y[i] = gT[i] - g[i];
-      sy += s[i] * y[i];
-      yy += y[i] * y[i];
+      const si = xT[i] - x[i];
+      const yi = gT[i] - g[i];
+      s[i] = si;
+      y[i] = yi;
+      sy += si * yi;
+      yy += yi * yi;
     }
     if (!(sy > EPS * yy) || !(yy > 0)) return;
+    const slot = (newest + 1) % history;
+    spareS = S[slot];
+    spareY = Y[slot];
+    S[slot] = s;
+    Y[slot] = y;
     rho[slot] = 1 / sy;
     newest = slot;
     if (pairs < history) pairs++;
-    if (!diagonal) return;
-    // Diagonal of the BFGS update of B0 = diag(B0) (the diagonal of a positive
-    // definite matrix, hence positive); J. C. Gilbert and C. Lemaréchal,
-    // Math. Programming 45 (1989) 407.
-    if (pairs === 1) B0.fill(yy / sy);
-    let sBs = 0;
-    for (let i = 0; i < n; i++) sBs += B0[i] * s[i] * s[i];
-    for (let i = 0; i < n; i++) {
-      const b = B0[i] + (y[i] * y[i]) / sy - (B0[i] * s[i]) ** 2 / sBs;
-      B0[i] = b > 1e-12 * (yy / sy) && Number.isFinite(b) ? b : yy / sy;
+    if (pairs === 1) {
+      H0.reset();
+      H0z.reset();
     }
-    // Scale so that yᵀ H0 y = sᵀ y, the condition that gives γ = sᵀy / yᵀy for H0 = γ I.
-    let yHy = 0;
-    for (let i = 0; i < n; i++) yHy += (y[i] * y[i]) / B0[i];
-    const c = yHy / sy;
-    for (let i = 0; i < n; i++) B0[i] *= c;
+    learn(s, y, sy, yy);
   };
 
   type Outcome = 'accepted' | 'failed' | 'non-finite' | 'budget';
@@ -350,10 +425,19 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
   };
 
   const stepLbfgs = (): Outcome => {
+    if (preconditioner && ++sinceRefresh > refresh) {
+      // Rebuild P here; H0 restarts from the newest pair in the new variables.
+      sinceRefresh = 1;
+      if (!preconditioner.update(x)) preconditioner = undefined;
+      H0.reset();
+      H0z.reset();
+      if (pairs > 0) learn(S[newest], Y[newest], 1 / rho[newest], dot(Y[newest], Y[newest]));
+    }
     for (let attempt = 0; attempt < 2; attempt++) {
       lbfgsDirection();
+      if (preconditioner && projection) projection.projectGradient(x, d);
       let initial = 1;
-      if (pairs === 0 || !(dot(g, d) < 0)) {
+      if ((pairs === 0 && !preconditioner) || !(dot(g, d) < 0)) {
         for (let i = 0; i < n; i++) d[i] = -g[i];
         pairs = 0;
         initial = firstStep(Infinity);

@@ -29,3 +29,20 @@ export interface Projection {
    */
   projectGradient(x: Float64Array, g: Float64Array): void;
 }
+
+/**
+ * A change of variables that makes a problem better conditioned: a symmetric
+ * positive definite P ≈ ∇²f, factored as P = Πᵀ L Lᵀ Π (Π a permutation).
+ * L-BFGS then works in z = Lᵀ Π x: its initial inverse Hessian becomes
+ * Πᵀ L⁻ᵀ D L⁻¹ Π with D learned in z. None of the methods may allocate.
+ */
+export interface Preconditioner {
+  /** (Re)build P at `x`; false when it could not (the minimizer then goes on without it). */
+  update(x: Float64Array): boolean;
+  /** out = L⁻¹ Π v. */
+  whiten(v: Float64Array, out: Float64Array): void;
+  /** out = Πᵀ L⁻ᵀ w; may overwrite `w`. */
+  unwhiten(w: Float64Array, out: Float64Array): void;
+  /** out = Lᵀ Π v. */
+  stretch(v: Float64Array, out: Float64Array): void;
+}

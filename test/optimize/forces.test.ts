@@ -16,5 +16,6 @@ describe('maxAtomNorm and rmsAtomNorm', () => {
   });
   it('report NaN when the array holds NaN', () => {
     expect(maxAtomNorm(new Float64Array([1, NaN, 0]))).toBeNaN();
+    expect(maxAtomNorm(new Float64Array([NaN, 0, 0, 5, 0, 0]))).toBeNaN(); // a later finite atom must not hide it
   });
 });

@@ -286,7 +286,7 @@ describe('minimize: stopping, caps and failures', () => {
   it('validates options with messages naming them', () => {
     const x0 = start();
     expect(() => minimize(rosenbrock, x0, { scaling: 'unit' as 'scalar' })).toThrow(
-      new RangeError(`scaling: expected 'diagonal' or 'scalar', got "unit"`),
+      new RangeError(`scaling: expected 'block', 'diagonal' or 'scalar', got "unit"`),
     );
     expect(() => minimize(rosenbrock, x0, { maxEvaluations: 0 })).toThrow(
       new RangeError('maxEvaluations: expected an integer ≥ 1 or Infinity, got 0'),

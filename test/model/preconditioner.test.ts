@@ -1,0 +1,74 @@
+import { describe, expect, it } from 'vitest';
+import { moleculeLikeModel } from '../../bench/molecule-like.js';
+import { parseModel } from '../../src/model/model.js';
+import { stiffTermPreconditioner } from '../../src/model/preconditioner.js';
+import { relaxModel } from '../../src/model/relax.js';
+import { distance } from '../../src/terms/measure.js';
+
+const UNITS = { length: 'angstrom', energy: 'kcal/mol' } as const;
+
+describe('stiffTermPreconditioner', () => {
+  it('is k u uᵀ on the two atoms of one bond plus μ = 0.1 × mean diagonal (vᵀPv checked by hand)', () => {
+    const model = parseModel({
+      format: 'strainwise-model',
+      version: 1,
+      units: UNITS,
+      atoms: [{ element: 'C' }, { element: 'C' }],
+      coordinates: [[0, 0, 0], [0.6, 0.8, 0]],
+      terms: [{ kind: 'harmonic-bond', atoms: [0, 1], k: 500, r0: 1.5 }],
+    });
+    const p = stiffTermPreconditioner(model.atomCount, model.tables, model.frozen);
+    expect(p).toBeDefined();
+    expect(p!.update(model.coordinates)).toBe(true);
+    // P = k [u uᵀ, −u uᵀ; −u uᵀ, u uᵀ] + μ I, trace = 2k, dimension 6 → μ = 0.1·2k/6
+    const k = 500;
+    const mu = (0.1 * 2 * k) / 6;
+    const u = [0.6, 0.8, 0];
+    const v = Float64Array.from([0.3, -1.2, 0.5, 2.0, 0.1, -0.7]);
+    const along = (v[3] - v[0]) * u[0] + (v[4] - v[1]) * u[1] + (v[5] - v[2]) * u[2];
+    const vPv = k * along * along + mu * v.reduce((a, x) => a + x * x, 0);
+    const s = new Float64Array(6);
+    p!.stretch(v, s);
+    expect(s.reduce((a, x) => a + x * x, 0)).toBeCloseTo(vPv, 9);
+  });
+
+  it('is undefined for a model without bond or angle terms', () => {
+    const model = parseModel({
+      format: 'strainwise-model',
+      version: 1,
+      units: UNITS,
+      atoms: [{ element: 'C' }],
+      coordinates: [[0, 0, 0]],
+      terms: [{ kind: 'position-restraint', atoms: [0], k: 1, x0: [1, 0, 0] }],
+    });
+    expect(stiffTermPreconditioner(model.atomCount, model.tables, model.frozen)).toBeUndefined();
+  });
+
+  it('with frozen atoms and fixed distances: frozen atoms bit-for-bit, constraints to 1e-10, converged', () => {
+    const file = moleculeLikeModel({ carbons: 10, seed: 4 });
+    const x = file.coordinates;
+    const constraints = [
+      [0, 1],
+      [1, 2],
+      [3, 4],
+    ].map(([i, j]) => ({ kind: 'fixed-distance', atoms: [i, j], length: 1.52 }));
+    // start on the constraints: scale each pair's bond to 1.52 by moving the second atom
+    for (const c of constraints) {
+      const [i, j] = c.atoms;
+      const d = [0, 1, 2].map((p) => x[j][p] - x[i][p]);
+      const len = Math.hypot(...d);
+      x[j] = [0, 1, 2].map((p) => x[i][p] + (d[p] * 1.52) / len) as [number, number, number];
+    }
+    const model = parseModel({ ...file, coordinates: x, frozen: [5, 9], constraints });
+    const start = model.coordinates;
+    const result = relaxModel(model, { maxForce: 1e-3 });
+    expect(result.converged).toBe(true);
+    for (const a of [5, 9]) for (let p = 0; p < 3; p++) expect(result.x[3 * a + p]).toBe(start[3 * a + p]);
+    for (const c of constraints) {
+      expect(Math.abs(distance(result.x, c.atoms[0], c.atoms[1]) - 1.52) / 1.52).toBeLessThan(1e-10);
+    }
+    const plain = relaxModel(model, { maxForce: 1e-3, precondition: false });
+    expect(plain.converged).toBe(true);
+    expect(result.evaluations).toBeLessThan(plain.evaluations);
+  });
+});
