@@ -35,9 +35,12 @@
  * minimizer stop with its non-finite reason. A pair with ε_ij = 0 and
  * q_i q_j = 0 adds nothing.
  *
- * **Scratch.** {@link createNonbondedPairs} allocates every work array once
- * (a stamp, cell index and sorting arrays of N entries, and cell counts for
- * at most N + 1 cells); evaluations never allocate and never throw. When the
+ * **Scratch.** {@link createNonbondedPairs} allocates every work array once:
+ * a stamp, cell and order arrays of N entries, cell starts for at most
+ * N + 1 cells, and copies of the coordinates, gradient and per-atom
+ * parameters in cell order (so the atoms of a cell lie together in memory;
+ * about 100 bytes per atom in all). Evaluations never allocate and never
+ * throw, and the scratch never needs to grow. When the
  * coordinates span so much space that cells of side r_c would outnumber the
  * atoms, the cells are made larger (still correct, and linear for any
  * geometry that is not mostly empty space).
@@ -86,18 +89,31 @@ export interface NonbondedParameters {
 
 /** Work arrays of one pair set, allocated once. */
 interface Workspace {
-  /** stamp[j] === i while atom i's pairs are visited and j is on i's skip list (−1 initially). */
+  /**
+   * stamp[b] === a while the pairs of the atom at position a are visited and
+   * the atom at position b is on its skip list (positions: atom indices in
+   * the all-pairs pass, cell order in the cell pass; −1 initially).
+   */
   readonly stamp: Int32Array;
-  /** 0, 1, …, N − 1: the visiting order of the all-pairs loop. */
-  readonly identity: Int32Array;
   /** Cell of each atom. */
   readonly cellOf: Int32Array;
-  /** Atoms sorted by cell. */
+  /** The atom at each position of the cell order. */
   readonly cellAtoms: Int32Array;
-  /** Start of each cell in `cellAtoms` (length maxCells + 1). */
+  /** The position of each atom in the cell order. */
+  readonly positionOf: Int32Array;
+  /** Start of each cell in the cell order (length maxCells + 1). */
   readonly cellStart: Int32Array;
   /** Largest number of cells. */
   readonly maxCells: number;
+  /** Coordinates in cell order (3N), so that a cell's atoms are contiguous in memory. */
+  readonly sortedX: Float64Array;
+  /** Gradient in cell order (3N), added back into the caller's at the end. */
+  readonly sortedGradient: Float64Array;
+  /** sqrtEpsilon, size, scaledCharge and charge in cell order. */
+  readonly sortedSqrtEpsilon: Float64Array;
+  readonly sortedSize: Float64Array;
+  readonly sortedScaledCharge: Float64Array;
+  readonly sortedCharge: Float64Array;
   /** Energy sums of one evaluation: [Lennard-Jones, Coulomb]. */
   readonly sums: Float64Array;
 }
@@ -231,11 +247,17 @@ export function createNonbondedPairs(parameters: NonbondedParameters): Nonbonded
     scale14Coulomb: parameters.scale14?.coulomb ?? 1,
     workspace: {
       stamp: new Int32Array(n).fill(-1),
-      identity: Int32Array.from({ length: n }, (_, a) => a),
       cellOf: new Int32Array(n),
       cellAtoms: new Int32Array(n),
+      positionOf: new Int32Array(n),
       cellStart: new Int32Array(maxCells + 1),
       maxCells,
+      sortedX: new Float64Array(3 * n),
+      sortedGradient: new Float64Array(3 * n),
+      sortedSqrtEpsilon: new Float64Array(n),
+      sortedSize: new Float64Array(n),
+      sortedScaledCharge: new Float64Array(n),
+      sortedCharge: new Float64Array(n),
       sums: new Float64Array(2),
     },
   };
@@ -262,17 +284,28 @@ const FORWARD = Int8Array.from([
 /** Relative margin by which cells are made larger than the cutoff, against rounding in the cell index. */
 const CELL_MARGIN = 1 + 1e-9;
 
+/** Per-atom arrays in one order (atom order or cell order), as {@link scan} reads them. */
+interface View {
+  readonly x: Float64Array;
+  readonly g: Float64Array | undefined;
+  readonly sqrtEpsilon: Float64Array;
+  readonly size: Float64Array;
+  readonly scaledCharge: Float64Array;
+  readonly charge: Float64Array;
+}
+
 /**
- * Pairs (i, list[m]) for m in [from, to): add the energies of those that
- * count (r < cutoff, not stamped as skipped) to `sums` and their gradient to
- * `g`. `ic6` = 1/r_c⁶ and `irc` = 1/r_c (0 without cutoff).
+ * Pairs (i, j) for j in [from, to), positions in the view's order: add the
+ * energies of those that count (r < cutoff, not stamped as skipped) to
+ * `sums` and their gradient to `v.g`. `ic6` = 1/r_c⁶ and `irc` = 1/r_c
+ * (0 without cutoff).
  */
 function scan(
-  x: Float64Array,
-  g: Float64Array | undefined,
-  p: NonbondedPairs,
+  v: View,
+  stamp: Int32Array,
+  sums: Float64Array,
+  geometric: boolean,
   i: number,
-  list: Int32Array,
   from: number,
   to: number,
   useLJ: boolean,
@@ -281,22 +314,20 @@ function scan(
   ic6: number,
   irc: number,
 ): void {
-  const stamp = p.workspace.stamp;
-  const sqrtEps = p.sqrtEpsilon;
-  const size = p.size;
-  const geometric = p.combination === 'geometric';
-  const charge = p.charge;
+  const { x, g, sqrtEpsilon, size, charge } = v;
   const i3 = 3 * i;
   const xi = x[i3];
   const yi = x[i3 + 1];
   const zi = x[i3 + 2];
-  const ei = sqrtEps[i];
+  const ei = sqrtEpsilon[i];
   const si = size[i];
-  const qi = p.scaledCharge[i];
+  const qi = v.scaledCharge[i];
   let eLJ = 0;
   let eC = 0;
-  for (let m = from; m < to; m++) {
-    const j = list[m];
+  let gxi = 0;
+  let gyi = 0;
+  let gzi = 0;
+  for (let j = from; j < to; j++) {
     const j3 = 3 * j;
     const dx = x[j3] - xi;
     const dy = x[j3 + 1] - yi;
@@ -305,7 +336,7 @@ function scan(
     if (!(r2 < rc2) || stamp[j] === i) continue;
     let f = 0;
     if (useLJ) {
-      const eps = ei * sqrtEps[j];
+      const eps = ei * sqrtEpsilon[j];
       if (eps !== 0) {
         let s6: number;
         if (geometric) {
@@ -338,18 +369,25 @@ function scan(
         }
       }
     }
-    if (g !== undefined && f !== 0) addPairGradient(g, i3, j3, f, dx, dy, dz);
+    if (g !== undefined && f !== 0) {
+      const fx = f * dx;
+      const fy = f * dy;
+      const fz = f * dz;
+      g[j3] += fx;
+      g[j3 + 1] += fy;
+      g[j3 + 2] += fz;
+      gxi -= fx;
+      gyi -= fy;
+      gzi -= fz;
+    }
   }
-  const sums = p.workspace.sums;
+  if (g !== undefined) {
+    g[i3] += gxi;
+    g[i3 + 1] += gyi;
+    g[i3 + 2] += gzi;
+  }
   sums[0] += eLJ;
   sums[1] += eC;
-}
-
-/** Mark atom i's skip list in the stamp array. */
-function stampSkips(p: NonbondedPairs, i: number): void {
-  const { stamp } = p.workspace;
-  const { skipStart, skipList } = p;
-  for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[skipList[k]] = i;
 }
 
 /** The scaled 1-4 pairs (within the cutoff, shifted, scaled). */
@@ -430,21 +468,26 @@ function allPairsPass(
   irc: number,
 ): void {
   const n = p.atomCount;
-  const order = p.workspace.identity;
+  const { stamp, sums } = p.workspace;
+  const { skipStart, skipList } = p;
+  const geometric = p.combination === 'geometric';
+  const view: View = { x, g, sqrtEpsilon: p.sqrtEpsilon, size: p.size, scaledCharge: p.scaledCharge, charge: p.charge };
+  stamp.fill(-1);
   for (let i = 0; i < n - 1; i++) {
-    stampSkips(p, i);
-    scan(x, g, p, i, order, i + 1, n, useLJ, useCoulomb, rc2, ic6, irc);
+    for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[skipList[k]] = i;
+    scan(view, stamp, sums, geometric, i, i + 1, n, useLJ, useCoulomb, rc2, ic6, irc);
   }
 }
 
 /**
- * The cell-list pass: sort the atoms into cells of side ≥ cutoff and visit
- * each cell's own pairs and those with its 13 forward neighbours. The
- * coordinates must be finite.
+ * The cell-list pass: sort the atoms into cells of side ≥ cutoff, copy
+ * coordinates and parameters into that order (so each cell's atoms are
+ * contiguous in memory), and visit each cell's own pairs and those with its
+ * 13 forward neighbours. The coordinates must be finite.
  */
 function cellPass(
   x: Float64Array,
-  g: Float64Array | undefined,
+  gradient: Float64Array | undefined,
   p: NonbondedPairs,
   useLJ: boolean,
   useCoulomb: boolean,
@@ -453,7 +496,8 @@ function cellPass(
   irc: number,
 ): void {
   const n = p.atomCount;
-  const { cellOf, cellAtoms, cellStart, maxCells } = p.workspace;
+  const w = p.workspace;
+  const { cellOf, cellAtoms, positionOf, cellStart, maxCells, stamp, sums } = w;
   let minX = Infinity;
   let minY = Infinity;
   let minZ = Infinity;
@@ -479,7 +523,7 @@ function cellPass(
   let nx = 1;
   let ny = 1;
   let nz = 1;
-  for (let round = 0; round < 2000; round++) {
+  for (let round = 0; round < 4000; round++) {
     nx = Math.max(1, Math.floor(spanX / side));
     ny = Math.max(1, Math.floor(spanY / side));
     nz = Math.max(1, Math.floor(spanZ / side));
@@ -502,9 +546,36 @@ function cellPass(
   }
   for (let c = 0; c < cells; c++) cellStart[c + 1] += cellStart[c];
   // Place each atom; cellStart[c] runs ahead and is shifted back afterwards.
-  for (let a = 0; a < n; a++) cellAtoms[cellStart[cellOf[a]]++] = a;
+  for (let a = 0; a < n; a++) {
+    const m = cellStart[cellOf[a]]++;
+    cellAtoms[m] = a;
+    positionOf[a] = m;
+  }
   for (let c = cells; c > 0; c--) cellStart[c] = cellStart[c - 1];
   cellStart[0] = 0;
+  const { sortedX, sortedGradient, sortedSqrtEpsilon, sortedSize, sortedScaledCharge, sortedCharge } = w;
+  for (let m = 0; m < n; m++) {
+    const a = cellAtoms[m];
+    sortedX[3 * m] = x[3 * a];
+    sortedX[3 * m + 1] = x[3 * a + 1];
+    sortedX[3 * m + 2] = x[3 * a + 2];
+    sortedSqrtEpsilon[m] = p.sqrtEpsilon[a];
+    sortedSize[m] = p.size[a];
+    sortedScaledCharge[m] = p.scaledCharge[a];
+    sortedCharge[m] = p.charge[a];
+    stamp[m] = -1;
+  }
+  if (gradient !== undefined) sortedGradient.fill(0);
+  const view: View = {
+    x: sortedX,
+    g: gradient === undefined ? undefined : sortedGradient,
+    sqrtEpsilon: sortedSqrtEpsilon,
+    size: sortedSize,
+    scaledCharge: sortedScaledCharge,
+    charge: sortedCharge,
+  };
+  const geometric = p.combination === 'geometric';
+  const { skipStart, skipList } = p;
   for (let cz = 0; cz < nz; cz++) {
     for (let cy = 0; cy < ny; cy++) {
       for (let cx = 0; cx < nx; cx++) {
@@ -512,18 +583,26 @@ function cellPass(
         const end = cellStart[c + 1];
         for (let m = cellStart[c]; m < end; m++) {
           const i = cellAtoms[m];
-          stampSkips(p, i);
-          scan(x, g, p, i, cellAtoms, m + 1, end, useLJ, useCoulomb, rc2, ic6, irc);
+          for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[positionOf[skipList[k]]] = m;
+          scan(view, stamp, sums, geometric, m, m + 1, end, useLJ, useCoulomb, rc2, ic6, irc);
           for (let o = 0; o < 39; o += 3) {
             const ox = cx + FORWARD[o];
             const oy = cy + FORWARD[o + 1];
             const oz = cz + FORWARD[o + 2];
             if (ox < 0 || ox >= nx || oy < 0 || oy >= ny || oz >= nz) continue;
             const c2 = (oz * ny + oy) * nx + ox;
-            scan(x, g, p, i, cellAtoms, cellStart[c2], cellStart[c2 + 1], useLJ, useCoulomb, rc2, ic6, irc);
+            scan(view, stamp, sums, geometric, m, cellStart[c2], cellStart[c2 + 1], useLJ, useCoulomb, rc2, ic6, irc);
           }
         }
       }
+    }
+  }
+  if (gradient !== undefined) {
+    for (let m = 0; m < n; m++) {
+      const a = 3 * cellAtoms[m];
+      gradient[a] += sortedGradient[3 * m];
+      gradient[a + 1] += sortedGradient[3 * m + 1];
+      gradient[a + 2] += sortedGradient[3 * m + 2];
     }
   }
 }
