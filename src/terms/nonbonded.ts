@@ -87,6 +87,20 @@ export interface NonbondedParameters {
   readonly cutoff?: number | null;
 }
 
+/**
+ * Per-atom arrays in one order (atom order or cell order), as `scan` reads
+ * them. `x` and `g` are set at each evaluation (one view object per order,
+ * made once, so that evaluating allocates nothing).
+ */
+interface View {
+  x: Float64Array;
+  g: Float64Array | undefined;
+  readonly sqrtEpsilon: Float64Array;
+  readonly size: Float64Array;
+  readonly scaledCharge: Float64Array;
+  readonly charge: Float64Array;
+}
+
 /** Work arrays of one pair set, allocated once. */
 interface Workspace {
   /**
@@ -116,6 +130,10 @@ interface Workspace {
   readonly sortedCharge: Float64Array;
   /** Energy sums of one evaluation: [Lennard-Jones, Coulomb]. */
   readonly sums: Float64Array;
+  /** The view of the arrays in atom order (the all-pairs pass). */
+  readonly atomView: View;
+  /** The view of the arrays in cell order (the cell pass). */
+  readonly cellView: View;
 }
 
 /**
@@ -229,6 +247,35 @@ export function createNonbondedPairs(parameters: NonbondedParameters): Nonbonded
   });
   const maxCells = n + 1;
   const cutoff = parameters.cutoff ?? Infinity;
+  const sortedSqrtEpsilon = new Float64Array(n);
+  const sortedSize = new Float64Array(n);
+  const sortedScaledCharge = new Float64Array(n);
+  const sortedCharge = new Float64Array(n);
+  const sortedX = new Float64Array(3 * n);
+  const workspace: Workspace = {
+    stamp: new Int32Array(n).fill(-1),
+    cellOf: new Int32Array(n),
+    cellAtoms: new Int32Array(n),
+    positionOf: new Int32Array(n),
+    cellStart: new Int32Array(maxCells + 1),
+    maxCells,
+    sortedX,
+    sortedGradient: new Float64Array(3 * n),
+    sortedSqrtEpsilon,
+    sortedSize,
+    sortedScaledCharge,
+    sortedCharge,
+    sums: new Float64Array(2),
+    atomView: { x: sortedX, g: undefined, sqrtEpsilon, size, scaledCharge, charge },
+    cellView: {
+      x: sortedX,
+      g: undefined,
+      sqrtEpsilon: sortedSqrtEpsilon,
+      size: sortedSize,
+      scaledCharge: sortedScaledCharge,
+      charge: sortedCharge,
+    },
+  };
   return {
     atomCount: n,
     hasLennardJones: lj !== undefined,
@@ -245,21 +292,7 @@ export function createNonbondedPairs(parameters: NonbondedParameters): Nonbonded
     excludedCount: excluded.length,
     scale14LennardJones: parameters.scale14?.lennardJones ?? 1,
     scale14Coulomb: parameters.scale14?.coulomb ?? 1,
-    workspace: {
-      stamp: new Int32Array(n).fill(-1),
-      cellOf: new Int32Array(n),
-      cellAtoms: new Int32Array(n),
-      positionOf: new Int32Array(n),
-      cellStart: new Int32Array(maxCells + 1),
-      maxCells,
-      sortedX: new Float64Array(3 * n),
-      sortedGradient: new Float64Array(3 * n),
-      sortedSqrtEpsilon: new Float64Array(n),
-      sortedSize: new Float64Array(n),
-      sortedScaledCharge: new Float64Array(n),
-      sortedCharge: new Float64Array(n),
-      sums: new Float64Array(2),
-    },
+    workspace,
   };
 }
 
@@ -284,15 +317,6 @@ const FORWARD = Int8Array.from([
 /** Relative margin by which cells are made larger than the cutoff, against rounding in the cell index. */
 const CELL_MARGIN = 1 + 1e-9;
 
-/** Per-atom arrays in one order (atom order or cell order), as {@link scan} reads them. */
-interface View {
-  readonly x: Float64Array;
-  readonly g: Float64Array | undefined;
-  readonly sqrtEpsilon: Float64Array;
-  readonly size: Float64Array;
-  readonly scaledCharge: Float64Array;
-  readonly charge: Float64Array;
-}
 
 /**
  * Pairs (i, j) for j in [from, to), positions in the view's order: add the
@@ -471,12 +495,17 @@ function allPairsPass(
   const { stamp, sums } = p.workspace;
   const { skipStart, skipList } = p;
   const geometric = p.combination === 'geometric';
-  const view: View = { x, g, sqrtEpsilon: p.sqrtEpsilon, size: p.size, scaledCharge: p.scaledCharge, charge: p.charge };
+  const view = p.workspace.atomView;
+  view.x = x;
+  view.g = g;
   stamp.fill(-1);
   for (let i = 0; i < n - 1; i++) {
     for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[skipList[k]] = i;
     scan(view, stamp, sums, geometric, i, i + 1, n, useLJ, useCoulomb, rc2, ic6, irc);
   }
+  // Hold no reference to the caller's arrays between evaluations.
+  view.x = p.workspace.sortedX;
+  view.g = undefined;
 }
 
 /**
@@ -566,14 +595,8 @@ function cellPass(
     stamp[m] = -1;
   }
   if (gradient !== undefined) sortedGradient.fill(0);
-  const view: View = {
-    x: sortedX,
-    g: gradient === undefined ? undefined : sortedGradient,
-    sqrtEpsilon: sortedSqrtEpsilon,
-    size: sortedSize,
-    scaledCharge: sortedScaledCharge,
-    charge: sortedCharge,
-  };
+  const view = w.cellView;
+  view.g = gradient === undefined ? undefined : sortedGradient;
   const geometric = p.combination === 'geometric';
   const { skipStart, skipList } = p;
   for (let cz = 0; cz < nz; cz++) {
