@@ -297,3 +297,18 @@ describe('the model with nonbonded pairs', () => {
     expect(Array.from(g2)).toEqual(Array.from(g1));
   });
 });
+
+describe('coincident atoms in a counted pair', () => {
+  it('the model energy is +Infinity (never NaN) and a relaxation stops with its non-finite reason', async () => {
+    const { relaxModel } = await import('../../src/model/relax.js');
+    const file = butane();
+    file.coordinates[13] = [...file.coordinates[0]] as [number, number, number]; // H13 onto C0: 4 bonds apart, a counted pair
+    const m = parseModel(file);
+    const g = new Float64Array(3 * m.atomCount);
+    expect(m.energy(m.coordinates, g)).toBe(Infinity);
+    expect(g.every((v) => Number.isFinite(v))).toBe(true);
+    const r = relaxModel(m, { maxIterations: 50 });
+    expect(r.converged).toBe(false);
+    expect(r.reason).toBe('non-finite');
+  });
+});
