@@ -6,7 +6,7 @@
  * parameters are in. Conversion happens only at the edges.
  *
  * Constants: CODATA 2018 exact values for c and N_A; the thermochemical
- * calorie 1 kcal = 4.184 kJ.
+ * calorie 1 kcal = 4.184 kJ; the Coulomb constant of the model-file spec.
  * @module
  */
 
@@ -62,4 +62,27 @@ export function unitFactor(from: Units, to: Units, energyPower: number, lengthPo
 /** The default convergence force, 0.01 kcal/mol/Å, in `units` (energy/length). */
 export function defaultMaxForce(units: Units): number {
   return 0.01 * unitFactor({ length: 'angstrom', energy: 'kcal/mol' }, units, 1, -1);
+}
+
+/**
+ * Coulomb constant e²/(4π ε0) · N_A in kJ·nm/(mol·e²): the primary value,
+ * 138.935458 as the model-file spec gives it. Of the spec's two values this
+ * one carries more digits (nine against the seven of 332.0637), so the other
+ * unit pairs are derived from it with {@link KJ_PER_KCAL} and
+ * {@link ANGSTROM_PER_NANOMETER}; in kcal·Å/(mol·e²) it is
+ * 138.935458 × 10 / 4.184 = 332.063714…, which rounds to the spec's 332.0637.
+ * (CODATA 2018, e = 1.602176634e-19 C exact, ε0 = 8.8541878128e-12 F/m,
+ * N_A exact, gives 138.9354576…, whose nine-digit rounding is this value.)
+ */
+export const COULOMB_KJ_NM = 138.935458;
+
+/**
+ * The Coulomb constant C in `units`: energy · length per elementary charge
+ * squared, so that two charges q_i, q_j (in e) at distance r (in the length
+ * unit) have E = C q_i q_j / r in the energy unit. Derived from
+ * {@link COULOMB_KJ_NM}: 138.935458 kJ·nm, 1389.35458 kJ·Å,
+ * 33.2063714… kcal·nm, 332.063714… kcal·Å (all per mol·e²).
+ */
+export function coulombConstant(units: Units): number {
+  return COULOMB_KJ_NM * unitFactor({ length: 'nanometer', energy: 'kJ/mol' }, units, 1, 1);
 }

@@ -3,8 +3,9 @@
  * counts, the gradient, force summary and the most strained terms.
  * @module
  */
+import type { EnergyKind } from '../model/kinds.js';
 import type { Model } from '../model/model.js';
-import type { TermKind } from '../terms/table.js';
+import { countedPairCount } from '../terms/nonbonded.js';
 import type { Units } from '../units.js';
 import { forceSummary } from './forces.js';
 import { mostStrainedTerms, type StrainedTerm } from './strain.js';
@@ -13,10 +14,14 @@ import { mostStrainedTerms, type StrainedTerm } from './strain.js';
 export interface EnergyReport {
   /** Sum of `byKind` (model energy unit). */
   readonly total: number;
-  /** Kind → energy for every kind the model has. */
-  readonly byKind: Readonly<Partial<Record<TermKind, number>>>;
-  /** Kind → number of terms. */
-  readonly termCounts: Readonly<Partial<Record<TermKind, number>>>;
+  /** Kind → energy for every kind the model has (term kinds, then `lennard-jones`, `coulomb`). */
+  readonly byKind: Readonly<Partial<Record<EnergyKind, number>>>;
+  /**
+   * Kind → number of terms; for `lennard-jones` and `coulomb`, the number of
+   * atom pairs that count (all pairs less the excluded ones, 1-4 pairs
+   * included), before any cutoff.
+   */
+  readonly termCounts: Readonly<Partial<Record<EnergyKind, number>>>;
   /** dE/dx per atom, `[gx, gy, gz]` (energy per length). */
   readonly gradient: [number, number, number][];
   /** Largest per-atom force norm |g_a| over all atoms (energy per length). */
@@ -36,8 +41,13 @@ export function energyReport(model: Model, x: Float64Array = model.coordinates, 
   const g = new Float64Array(3 * model.atomCount);
   model.energy(x, g);
   const { total, byKind } = model.breakdown(x);
-  const termCounts: Partial<Record<TermKind, number>> = {};
+  const termCounts: Partial<Record<EnergyKind, number>> = {};
   for (const t of model.tables) termCounts[t.kind] = t.count;
+  if (model.nonbonded !== null) {
+    const pairs = countedPairCount(model.nonbonded);
+    if (model.nonbonded.hasLennardJones) termCounts['lennard-jones'] = pairs;
+    if (model.nonbonded.hasCoulomb) termCounts.coulomb = pairs;
+  }
   const gradient: [number, number, number][] = [];
   for (let a = 0; a < model.atomCount; a++) gradient.push([g[3 * a], g[3 * a + 1], g[3 * a + 2]]);
   const forces = forceSummary(g);

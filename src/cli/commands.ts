@@ -5,6 +5,7 @@
  */
 import { checkModelGradient } from '../analysis/gradient-check.js';
 import { energyReport, type EnergyReport } from '../analysis/report.js';
+import { isNonbondedKind } from '../model/kinds.js';
 import type { Model } from '../model/model.js';
 import { num, table, unitLabels } from './format.js';
 
@@ -53,7 +54,8 @@ export function formatEnergyReport(model: Model, report: EnergyReport): string {
   lines.push('');
   const rows: string[][] = [['kind', 'terms', `energy (${u.energy})`]];
   for (const kind of model.kinds) {
-    rows.push([kind, String(report.termCounts[kind] ?? 0), num(report.byKind[kind] ?? 0, 8)]);
+    const count = String(report.termCounts[kind] ?? 0);
+    rows.push([kind, isNonbondedKind(kind) ? `${count} pairs` : count, num(report.byKind[kind] ?? 0, 8)]);
   }
   rows.push(['total', String(model.termCount), num(report.total, 8)]);
   lines.push(table(rows, 'lrr'));

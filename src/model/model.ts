@@ -5,9 +5,17 @@
  */
 import { standardAtomicWeight } from '../elements.js';
 import { accumulateAll, KERNELS } from '../terms/kernels.js';
+import {
+  accumulateNonbonded,
+  NONBONDED_COULOMB,
+  NONBONDED_LENNARD_JONES,
+  type NonbondedPairs,
+} from '../terms/nonbonded.js';
 import type { TermKind, TermTable } from '../terms/table.js';
 import type { Units } from '../units.js';
 import { compileTerms, type CompiledTable } from './compile.js';
+import { isNonbondedKind, type EnergyKind } from './kinds.js';
+import { compileNonbonded } from './nonbonded.js';
 import type { ModelFile } from './schema.js';
 import { readModelFile } from './validate.js';
 
@@ -29,8 +37,12 @@ export interface ModelAtom {
 export interface EnergyBreakdown {
   /** The sum of `byKind`. */
   readonly total: number;
-  /** Kind → energy, for every kind the model has terms of (in summing order). */
-  readonly byKind: Readonly<Partial<Record<TermKind, number>>>;
+  /**
+   * Kind → energy, for every kind the model has (in the order of
+   * {@link Model.kinds}): its term kinds, then `lennard-jones` and `coulomb`
+   * when its `nonbonded` block gives them.
+   */
+  readonly byKind: Readonly<Partial<Record<EnergyKind, number>>>;
 }
 
 /**
@@ -62,14 +74,22 @@ export class Model {
   readonly masses: Float64Array;
   /** One table per kind present, in summing order (see `TERM_KINDS`). */
   readonly tables: readonly TermTable[];
-  /** The kinds the model has terms of, in the order of {@link tables}. */
-  readonly kinds: readonly TermKind[];
+  /**
+   * The kinds the model reports energies for: first the kind of each of
+   * {@link tables}, in that order, then `lennard-jones` and `coulomb` when
+   * the `nonbonded` block gives them (each even when it is zero everywhere).
+   */
+  readonly kinds: readonly EnergyKind[];
+  /** The compiled nonbonded pairs, or null when the model has no `lennardJones` or `coulomb`. */
+  readonly nonbonded: NonbondedPairs | null;
   /** Atoms that a minimizer must not move (sorted, distinct). */
   readonly frozen: Int32Array;
 
   readonly #file: ModelFile;
   readonly #coordinates: Float64Array;
   readonly #sources: readonly Int32Array[];
+  /** Energies per nonbonded kind of the last evaluation (scratch, so that `energy` allocates nothing). */
+  readonly #parts = new Float64Array(2);
 
   /** Compile an already-validated model file (use {@link parseModel} for untrusted input). */
   constructor(file: ModelFile) {
@@ -94,7 +114,9 @@ export class Model {
     const compiled: CompiledTable[] = compileTerms(file.terms);
     this.tables = compiled.map((c) => c.table);
     this.#sources = compiled.map((c) => c.source);
-    this.kinds = this.tables.map((t) => t.kind);
+    const nonbonded = compileNonbonded(file);
+    this.nonbonded = nonbonded?.pairs ?? null;
+    this.kinds = [...this.tables.map((t) => t.kind), ...(nonbonded?.kinds ?? [])];
     this.frozen = Int32Array.from([...(file.frozen ?? [])].sort((a, b) => a - b));
   }
 
@@ -119,26 +141,54 @@ export class Model {
    * overwritten with dE/dx (energy per length). Never allocates, never
    * throws, never modifies `x`; arrays of the wrong length give meaningless
    * numbers (check `x.length === 3 * model.atomCount` at your boundary).
+   * Includes the nonbonded pairs when the model has them (a counted pair of
+   * coincident atoms makes it +Infinity; see `src/terms/nonbonded.ts`).
    */
   energy(x: Float64Array, gradient?: Float64Array): number {
-    return accumulateAll(x, this.tables, gradient);
+    const bonded = accumulateAll(x, this.tables, gradient);
+    return this.nonbonded === null ? bonded : bonded + accumulateNonbonded(x, this.nonbonded, gradient);
+  }
+
+  /**
+   * Energy of one kind alone at `x` (0 for a kind the model does not have).
+   * When `gradient` is given it is overwritten with that kind's dE/dx.
+   * Never allocates, never throws.
+   */
+  kindEnergy(kind: EnergyKind, x: Float64Array, gradient?: Float64Array): number {
+    if (gradient !== undefined) gradient.fill(0);
+    if (isNonbondedKind(kind)) {
+      if (this.nonbonded === null) return 0;
+      const include = kind === 'lennard-jones' ? NONBONDED_LENNARD_JONES : NONBONDED_COULOMB;
+      return accumulateNonbonded(x, this.nonbonded, gradient, undefined, include);
+    }
+    let e = 0;
+    for (const table of this.tables) if (table.kind === kind) e += KERNELS[kind](x, table, gradient);
+    return e;
   }
 
   /** Energy per kind at `x` (allocates a small result object). */
   breakdown(x: Float64Array): EnergyBreakdown {
-    const byKind: Partial<Record<TermKind, number>> = {};
+    const byKind: Partial<Record<EnergyKind, number>> = {};
     let total = 0;
     for (const table of this.tables) {
       const e = KERNELS[table.kind](x, table);
       byKind[table.kind] = e;
       total += e;
     }
+    if (this.nonbonded !== null) {
+      const parts = this.#parts;
+      // Summed as `energy` sums, so that total and energy(x) agree to the bit.
+      total += accumulateNonbonded(x, this.nonbonded, undefined, parts);
+      if (this.nonbonded.hasLennardJones) byKind['lennard-jones'] = parts[0];
+      if (this.nonbonded.hasCoulomb) byKind.coulomb = parts[1];
+    }
     return { total, byKind };
   }
 
   /**
    * Energy of every term at `x`: one `Float64Array` per table (same order as
-   * {@link tables}), entry `t` the energy of row `t`.
+   * {@link tables}), entry `t` the energy of row `t`. Nonbonded pairs are
+   * not terms and are not included (see {@link breakdown} for their sums).
    */
   termEnergies(x: Float64Array): Float64Array[] {
     return this.tables.map((table) => {
