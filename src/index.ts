@@ -65,3 +65,6 @@ export { relaxModel } from './model/relax.js';
 export type { RelaxOptions, RelaxResult } from './model/relax.js';
 export { writeFileWhole } from './io/write-file.js';
 export { xyzFrame } from './io/xyz.js';
+
+// Generic parameters (Rappé et al. 1992) for a perceived topology
+export * from './params/index.js';
