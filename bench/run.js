@@ -25,7 +25,7 @@ function table(kind, count, atoms) {
     const start = r % (atoms - t.arity);
     for (let a = 0; a < t.arity; a++) t.atoms[r * t.arity + a] = start + a;
     for (let p = 0; p < t.width; p++) t.params[r * t.width + p] = 0.5 + random();
-    if (kind === 'periodic-dihedral') t.params[r * t.width + 1] = 3;
+    if (kind === 'periodic-dihedral' || kind === 'periodic-angle') t.params[r * t.width + 1] = 3;
     if (kind === 'distance-restraint') { t.params[r * 3 + 1] = 1; t.params[r * 3 + 2] = 1.2; }
   }
   return t;

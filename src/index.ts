@@ -12,7 +12,7 @@ export { parseModel, Model } from './model/model.js';
 export type { ModelAtom, EnergyBreakdown } from './model/model.js';
 export { readModelFile } from './model/validate.js';
 export { convertModelUnits } from './model/convert.js';
-export { compileTerms, tableFromRecords, writeParameters } from './model/compile.js';
+export { compileTerms, tableFromRecords, writeParameters, cosineSeriesCoefficients } from './model/compile.js';
 export type { CompiledTable } from './model/compile.js';
 export { MODEL_FORMAT, MODEL_VERSIONS, MODEL_DEFAULTS } from './model/schema.js';
 export type {
@@ -29,7 +29,13 @@ export { TERM_KINDS, KIND_LAYOUTS, createTable } from './terms/table.js';
 export type { TermKind, KindLayout, TermTable, Kernel } from './terms/table.js';
 export { KERNELS, accumulateAll } from './terms/kernels.js';
 export { accumulateHarmonicBonds, accumulateMorseBonds, accumulateUreyBradley } from './terms/bond.js';
-export { accumulateHarmonicAngles, accumulateCosineAngles } from './terms/angle.js';
+export {
+  accumulateHarmonicAngles,
+  accumulateCosineAngles,
+  accumulateCosineSeriesAngles,
+  accumulatePeriodicAngles,
+} from './terms/angle.js';
+export { accumulateInversions } from './terms/inversion.js';
 export {
   accumulatePeriodicDihedrals,
   accumulateRyckaertBellemans,
@@ -37,7 +43,7 @@ export {
   wrapAngle,
 } from './terms/torsion.js';
 export { accumulatePositionRestraints, accumulateDistanceRestraints } from './terms/restraint.js';
-export { distance, bendAngle, torsionAngle } from './terms/measure.js';
+export { distance, bendAngle, torsionAngle, outOfPlaneAngle } from './terms/measure.js';
 
 export { forceSummary } from './analysis/forces.js';
 export type { ForceSummary } from './analysis/forces.js';
@@ -60,3 +66,22 @@ export type { RelaxOptions, RelaxResult } from './model/relax.js';
 export { writeFileWhole } from './io/write-file.js';
 export { xyzFrame } from './io/xyz.js';
 export { stiffTermPreconditioner } from './model/preconditioner.js';
+
+// Generic parameters (Rappé et al. 1992) for a perceived topology
+export * from './params/index.js';
+
+// Nonbonded pairs (the model file's `nonbonded` block)
+export type { EnergyKind, NonbondedKind } from './model/kinds.js';
+export { NONBONDED_KINDS, isNonbondedKind } from './model/kinds.js';
+export { compileNonbonded, bondSeparations, nonbondedConnectivity } from './model/nonbonded.js';
+export type { BondSeparations, CompiledNonbonded } from './model/nonbonded.js';
+export {
+  createNonbondedPairs,
+  accumulateNonbonded,
+  accumulateNonbondedAllPairs,
+  countedPairCount,
+  NONBONDED_LENNARD_JONES,
+  NONBONDED_COULOMB,
+  NONBONDED_ALL,
+} from './terms/nonbonded.js';
+export type { NonbondedPairs, NonbondedParameters, CombinationRule } from './terms/nonbonded.js';

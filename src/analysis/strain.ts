@@ -4,7 +4,7 @@
  * @module
  */
 import type { Model } from '../model/model.js';
-import { bendAngle, distance, torsionAngle } from '../terms/measure.js';
+import { bendAngle, distance, outOfPlaneAngle, torsionAngle } from '../terms/measure.js';
 import type { TermKind } from '../terms/table.js';
 import { wrapAngle } from '../terms/torsion.js';
 
@@ -24,7 +24,7 @@ export interface StrainedTerm {
   readonly quantity: 'distance' | 'angle' | 'torsion' | 'displacement';
   /** Its present value (length, or degrees). */
   readonly value: number;
-  /** Its reference value (r0, θ0, ξ0, s0; the flat width for a position restraint; the nearer bound for a distance restraint), or null where the energy has no single reference (periodic and Ryckaert–Bellemans torsions). */
+  /** Its reference value (r0, θ0, ξ0, s0, ω0; the flat width for a position restraint; the nearer bound for a distance restraint), or null where the energy has no single reference (periodic and Ryckaert–Bellemans torsions, periodic angles). For an inversion, value and reference are the mean out-of-plane angle |ω| of its three choices and ω0. */
   readonly reference: number | null;
   /** value − reference (for an improper, wrapped into [−180°, 180°)), or null. */
   readonly deviation: number | null;
@@ -96,5 +96,24 @@ function geometry(
       const r = distance(x, a[0], a[1]);
       return of('distance', r, r < p[1] ? p[1] : p[2]);
     }
+    case 'cosine-series-angle':
+      // minimum of c0 + c1 cos θ + c2 cos 2θ at cos θ0 = −c1/(4 c2)
+      return of('angle', bendAngle(x, a[0], a[1], a[2]) * DEG, p[2] > 0 ? Math.acos(clampUnit(-p[1] / (4 * p[2]))) * DEG : null);
+    case 'periodic-angle':
+      return of('angle', bendAngle(x, a[0], a[1], a[2]) * DEG, null);
+    case 'inversion': {
+      // the mean |ω| over the three choices of the out-of-plane neighbour
+      const w =
+        (Math.abs(outOfPlaneAngle(x, a[0], a[1], a[2], a[3])) +
+          Math.abs(outOfPlaneAngle(x, a[0], a[2], a[3], a[1])) +
+          Math.abs(outOfPlaneAngle(x, a[0], a[3], a[1], a[2]))) /
+        3;
+      const reference = p[2] > 0 ? Math.acos(clampUnit(-p[1] / (4 * p[2]))) * DEG : 0;
+      return of('angle', w * DEG, reference);
+    }
   }
+}
+
+function clampUnit(c: number): number {
+  return c > 1 ? 1 : c < -1 ? -1 : c;
 }

@@ -36,7 +36,10 @@ export interface CompiledTable {
 /**
  * Write the internal parameters of one record into `out` at `offset`, in the
  * layout of {@link KIND_LAYOUTS} (angles converted from degrees to radians;
- * `cosine-angle` stores cos θ0, `periodic-dihedral` cos and sin of its phase; `position-restraint` `flat` defaults to 0).
+ * `cosine-angle` stores cos θ0, `periodic-dihedral` cos and sin of its phase; `position-restraint` `flat` defaults to 0;
+ * `cosine-series-angle` and `inversion` store k C0, k C1, k C2 (see
+ * {@link cosineSeriesCoefficients}; an inversion with ω0 = 0 has C = [1, −1, 0]);
+ * `periodic-angle` stores k/n², n and cos(n θ0) = ±1).
  */
 export function writeParameters(term: TermRecord, out: Float64Array, offset: number): void {
   switch (term.kind) {
@@ -86,7 +89,41 @@ export function writeParameters(term: TermRecord, out: Float64Array, offset: num
       out[offset + 1] = term.lower;
       out[offset + 2] = term.upper;
       return;
+    case 'cosine-series-angle': {
+      const [c0, c1, c2] = cosineSeriesCoefficients(term.theta0);
+      out[offset] = term.k * c0;
+      out[offset + 1] = term.k * c1;
+      out[offset + 2] = term.k * c2;
+      return;
+    }
+    case 'periodic-angle':
+      out[offset] = term.k / (term.n * term.n);
+      out[offset + 1] = term.n;
+      // cos(n θ0) for θ0 a whole multiple of 180°/n (checked when reading): exactly ±1
+      out[offset + 2] = Math.round((term.n * term.theta0) / 180) % 2 === 0 ? 1 : -1;
+      return;
+    case 'inversion': {
+      const [c0, c1, c2] = term.omega0 === 0 ? [1, -1, 0] : cosineSeriesCoefficients(term.omega0);
+      out[offset] = term.k * c0;
+      out[offset + 1] = term.k * c1;
+      out[offset + 2] = term.k * c2;
+      return;
+    }
   }
+}
+
+/**
+ * The coefficients [C0, C1, C2] of C0 + C1 cos θ + C2 cos 2θ with its minimum
+ * (zero) at θ0 and curvature 1 there: C2 = 1/(4 sin²θ0), C1 = −4 C2 cos θ0,
+ * C0 = C2 (2 cos²θ0 + 1) (the general angle form of Rappé et al., J. Am.
+ * Chem. Soc. 114 (1992) 10024, scaled so that E''(θ0) = 1). θ0 in degrees,
+ * strictly between 0 and 180.
+ */
+export function cosineSeriesCoefficients(theta0Degrees: number): [number, number, number] {
+  const c = cosDegrees(theta0Degrees);
+  const s = sinDegrees(theta0Degrees);
+  const c2 = 1 / (4 * s * s);
+  return [c2 * (2 * c * c + 1), c === 0 ? 0 : -4 * c2 * c, c2];
 }
 
 /**

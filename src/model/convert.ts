@@ -11,7 +11,7 @@ import type { ModelFile, TermRecord } from './schema.js';
 interface Factors {
   /** A length (coordinates, r0, s0, lower, upper, flat, x0, rmin, cutoff, constraint length). */
   readonly length: number;
-  /** An energy (Morse D, torsion k, Ryckaert–Bellemans c, epsilon, cosine-angle k; angle k per radian²). */
+  /** An energy (Morse D, torsion k, Ryckaert–Bellemans c, epsilon, cosine-angle k; angle, inversion k per radian²). */
   readonly energy: number;
   /** Energy per length squared (harmonic-bond, Urey–Bradley and restraint k). */
   readonly stiffness: number;
@@ -26,7 +26,9 @@ interface Factors {
  * Lengths: coordinates, `r0`, `s0`, `lower`, `upper`, `flat`, `x0`, `rmin`,
  * `cutoff`, constraint `length`. Energies: Morse `D`, `periodic-dihedral`
  * `k`, Ryckaert–Bellemans `c`, `epsilon`, `cosine-angle` `k`, and the `k` of
- * `harmonic-angle` and `harmonic-improper` (energy per radian²). Energy per
+ * `harmonic-angle`, `harmonic-improper`, `cosine-series-angle`,
+ * `periodic-angle` and `inversion` (energy per radian²). Unchanged too:
+ * `omega0` (degrees). Energy per
  * length²: the `k` of `harmonic-bond`, `urey-bradley`, `position-restraint`
  * and `distance-restraint`. Per length: Morse `a`. Unchanged: angles
  * (`theta0`, `phase`, `xi0`, always degrees), `n`, masses, charges, the
@@ -74,6 +76,9 @@ function convertTerm(term: TermRecord, f: Factors): TermRecord {
       break;
     case 'harmonic-angle':
     case 'cosine-angle':
+    case 'cosine-series-angle':
+    case 'periodic-angle':
+    case 'inversion':
     case 'harmonic-improper':
     case 'periodic-dihedral':
       term.k *= f.energy;

@@ -110,6 +110,15 @@ const theta0 = () => {
   return z.number(expected(what)).min(0, expected(what)).max(180, expected(what));
 };
 
+const openTheta0 = () => {
+  const what = 'an angle in degrees in (0, 180) (for a linear angle use periodic-angle with n 1 and theta0 180)';
+  return z.number(expected(what)).gt(0, expected(what)).lt(180, expected(what));
+};
+const omega0 = () => {
+  const what = 'an angle in degrees in [0, 90]';
+  return z.number(expected(what)).min(0, expected(what)).max(90, expected(what));
+};
+
 /** A 0-based atom index; whether it is in range is checked against the atom count later. */
 const atomIndex = () => {
   const what = 'an atom index (an integer ≥ 0)';
@@ -243,6 +252,22 @@ export const TERM_SCHEMAS = {
     lower: finite(),
     upper: finite(),
   }),
+  'cosine-series-angle': term('cosine-series-angle', {
+    atoms: atomList('cosine-series-angle', 3),
+    k: atLeast(0),
+    theta0: openTheta0(),
+  }),
+  'periodic-angle': term('periodic-angle', {
+    atoms: atomList('periodic-angle', 3),
+    k: atLeast(0),
+    n: integerAtLeast(1),
+    theta0: theta0(),
+  }),
+  inversion: term('inversion', {
+    atoms: atomList('inversion', 4),
+    k: atLeast(0),
+    omega0: omega0(),
+  }),
 } as const satisfies Record<TermKind, z.ZodType>;
 
 const KNOWN_KINDS = TERM_KINDS.join(', ');
@@ -261,6 +286,9 @@ export const termRecordSchema = z.discriminatedUnion(
     TERM_SCHEMAS['harmonic-improper'],
     TERM_SCHEMAS['position-restraint'],
     TERM_SCHEMAS['distance-restraint'],
+    TERM_SCHEMAS['cosine-series-angle'],
+    TERM_SCHEMAS['periodic-angle'],
+    TERM_SCHEMAS.inversion,
   ],
   {
     error: (issue: Issue) => {

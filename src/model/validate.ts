@@ -203,6 +203,10 @@ function checkTerms(terms: JsonValue | undefined, checkIndex: CheckIndex, report
     if (Array.isArray(term.atoms) && term.atoms.length === KIND_LAYOUTS[kind].arity) {
       checkAtomList(term.atoms, ['terms', t, 'atoms'], 'term', checkIndex, report);
     }
+    if (kind === 'periodic-angle' && isIndex(term.n) && term.n >= 1 && isFiniteNumber(term.theta0)) {
+      const detail = periodicAngleProblem(term.n, term.theta0);
+      if (detail !== undefined) report(['terms', t, 'theta0'], detail);
+    }
     if (kind === 'distance-restraint' && isFiniteNumber(term.lower) && isFiniteNumber(term.upper) && term.lower > term.upper) {
       const later = Object.keys(term).indexOf('lower') > Object.keys(term).indexOf('upper') ? 'lower' : 'upper';
       report(
@@ -212,6 +216,24 @@ function checkTerms(terms: JsonValue | undefined, checkIndex: CheckIndex, report
       );
     }
   });
+}
+
+/**
+ * A periodic angle's minimum must sit at θ0: θ0 a whole multiple of 180°/n
+ * (to 1e-9 of a step), so that cos(n θ0) = ±1. Returns the message, or undefined.
+ */
+function periodicAngleProblem(n: number, theta0: number): string | undefined {
+  const steps = (n * theta0) / 180;
+  if (Math.abs(steps - Math.round(steps)) <= 1e-9) return undefined;
+  const step = 180 / n;
+  const multiples: string[] = [];
+  for (let m = 0; m * step <= 180 + 1e-9 && multiples.length < 7; m++) multiples.push(formatDegrees(m * step));
+  const list = n <= 6 ? ` (${multiples.slice(0, -1).join(', ')} or ${multiples[multiples.length - 1]})` : '';
+  return `periodic-angle with n ${n} needs theta0 a whole multiple of ${formatDegrees(step)}°${list}, got ${describeValue(theta0)}`;
+}
+
+function formatDegrees(value: number): string {
+  return String(Number(value.toFixed(6)));
 }
 
 /** Range and repeats within one term's or constraint's atoms; returns whether all are usable and distinct. */

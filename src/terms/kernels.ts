@@ -2,8 +2,14 @@
  * The kernel of every term kind, by name.
  * @module
  */
-import { accumulateCosineAngles, accumulateHarmonicAngles } from './angle.js';
+import {
+  accumulateCosineAngles,
+  accumulateCosineSeriesAngles,
+  accumulateHarmonicAngles,
+  accumulatePeriodicAngles,
+} from './angle.js';
 import { accumulateHarmonicBonds, accumulateMorseBonds, accumulateUreyBradley } from './bond.js';
+import { accumulateInversions } from './inversion.js';
 import { accumulateDistanceRestraints, accumulatePositionRestraints } from './restraint.js';
 import type { Kernel, TermKind, TermTable } from './table.js';
 import {
@@ -24,6 +30,9 @@ export const KERNELS: Readonly<Record<TermKind, Kernel>> = {
   'harmonic-improper': accumulateHarmonicImpropers,
   'position-restraint': accumulatePositionRestraints,
   'distance-restraint': accumulateDistanceRestraints,
+  'cosine-series-angle': accumulateCosineSeriesAngles,
+  'periodic-angle': accumulatePeriodicAngles,
+  inversion: accumulateInversions,
 };
 
 /**

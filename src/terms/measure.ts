@@ -62,3 +62,33 @@ export function torsionAngle(x: Float64Array, i: number, j: number, k: number, l
   const phi = Math.atan2(sin, mx * nx + my * ny + mz * nz);
   return phi === -Math.PI ? Math.PI : phi;
 }
+
+/**
+ * Out-of-plane angle ω of the bond i–l against the plane of i, j, k
+ * (radians in [−π/2, π/2]; 0 when l lies in the plane, positive on the side
+ * of (x_j − x_i) × (x_k − x_i)), as the `inversion` kernel computes it:
+ * ω = atan2(n · d, |n × d|), n = (x_j − x_i) × (x_k − x_i), d = x_l − x_i.
+ * 0 when the plane or the bond is undefined (collinear or coincident atoms).
+ */
+export function outOfPlaneAngle(x: Float64Array, i: number, j: number, k: number, l: number): number {
+  const a = 3 * i;
+  const b = 3 * j;
+  const c = 3 * k;
+  const e = 3 * l;
+  const ax = x[b] - x[a];
+  const ay = x[b + 1] - x[a + 1];
+  const az = x[b + 2] - x[a + 2];
+  const bx = x[c] - x[a];
+  const by = x[c + 1] - x[a + 1];
+  const bz = x[c + 2] - x[a + 2];
+  const dx = x[e] - x[a];
+  const dy = x[e + 1] - x[a + 1];
+  const dz = x[e + 2] - x[a + 2];
+  const nx = ay * bz - az * by;
+  const ny = az * bx - ax * bz;
+  const nz = ax * by - ay * bx;
+  const qx = ny * dz - nz * dy;
+  const qy = nz * dx - nx * dz;
+  const qz = nx * dy - ny * dx;
+  return Math.atan2(nx * dx + ny * dy + nz * dz, Math.sqrt(qx * qx + qy * qy + qz * qz));
+}

@@ -11,7 +11,11 @@
  * @module
  */
 
-/** The ten bonded term kinds of model-file version 1. */
+/**
+ * The bonded term kinds: the ten of model-file version 1, then the
+ * extensions documented in docs/model-file.md (`cosine-series-angle`,
+ * `periodic-angle`, `inversion`).
+ */
 export type TermKind =
   | 'harmonic-bond'
   | 'morse-bond'
@@ -22,7 +26,10 @@ export type TermKind =
   | 'ryckaert-bellemans'
   | 'harmonic-improper'
   | 'position-restraint'
-  | 'distance-restraint';
+  | 'distance-restraint'
+  | 'cosine-series-angle'
+  | 'periodic-angle'
+  | 'inversion';
 
 /** Every term kind, in the order energies are summed and reported. */
 export const TERM_KINDS: readonly TermKind[] = [
@@ -36,6 +43,9 @@ export const TERM_KINDS: readonly TermKind[] = [
   'harmonic-improper',
   'position-restraint',
   'distance-restraint',
+  'cosine-series-angle',
+  'periodic-angle',
+  'inversion',
 ];
 
 /** Atoms per term and the internal parameter columns of one kind. */
@@ -62,6 +72,11 @@ export interface KindLayout {
  * - `harmonic-improper` [k, xi0]: E = ½ k Δ², Δ = φ − ξ0 wrapped into [−π, π)
  * - `position-restraint` [k, x0, y0, z0, flat]: E = ½ k max(0, |x_i − x0| − flat)²
  * - `distance-restraint` [k, lower, upper]: E = ½ k (lower − r)² below, ½ k (r − upper)² above, 0 between
+ * - `cosine-series-angle` [c0, c1, c2] (energies): E = c0 + c1 cos θ + c2 cos 2θ
+ *   (the file's k and θ0 become c_m = k C_m, see `writeParameters`)
+ * - `periodic-angle` [a, n, sign] : E = a [1 − sign · cos(n θ)], a = k/n², sign = cos(n θ0) = ±1
+ * - `inversion` [c0, c1, c2] (energies), atoms [centre, a, b, c]:
+ *   E = ⅓ Σ over the three choices of the out-of-plane neighbour of c0 + c1 cos ω + c2 cos 2ω
  */
 export const KIND_LAYOUTS: Readonly<Record<TermKind, KindLayout>> = {
   'harmonic-bond': { arity: 2, columns: ['k', 'r0'] },
@@ -74,6 +89,9 @@ export const KIND_LAYOUTS: Readonly<Record<TermKind, KindLayout>> = {
   'harmonic-improper': { arity: 4, columns: ['k', 'xi0'] },
   'position-restraint': { arity: 1, columns: ['k', 'x0', 'y0', 'z0', 'flat'] },
   'distance-restraint': { arity: 2, columns: ['k', 'lower', 'upper'] },
+  'cosine-series-angle': { arity: 3, columns: ['c0', 'c1', 'c2'] },
+  'periodic-angle': { arity: 3, columns: ['a', 'n', 'sign'] },
+  inversion: { arity: 4, columns: ['c0', 'c1', 'c2'] },
 };
 
 /** A table of `count` terms of one kind, in flat arrays. */

@@ -8,6 +8,8 @@
  */
 import type { TermKind } from '../../src/terms/table.js';
 import { applyMotion, chain, randomRigidMotion, rad, triangle } from './geometry.js';
+import { cosineSeriesCoefficients } from '../../src/model/compile.js';
+import { outOfPlaneAngle } from '../../src/terms/measure.js';
 import type { Random } from './random.js';
 import { periodicDihedralParams } from './terms.js';
 
@@ -50,6 +52,25 @@ const distanceParams: ParamGenerator = (rng) => {
   return [rng.uniform(1, 100), lower, lower + (rng.next() < 0.2 ? 0 : rng.uniform(0, 2))];
 };
 
+/** k C0, k C1, k C2 of a series with its minimum at `degrees`, or (one time in five) arbitrary coefficients. */
+function seriesParams(rng: Random, lo: number, hi: number): number[] {
+  if (rng.next() < 0.2) return [rng.uniform(-50, 50), rng.uniform(-50, 50), rng.uniform(-50, 50)];
+  const k = rng.uniform(10, 300);
+  return cosineSeriesCoefficients(rng.uniform(lo, hi)).map((c) => k * c);
+}
+const cosineSeriesParams: ParamGenerator = (rng) => seriesParams(rng, 30, 170);
+const periodicAngleParams: ParamGenerator = (rng) => {
+  const n = rng.int(1, 6);
+  return [rng.uniform(10, 300) / (n * n), n, rng.sign()];
+};
+const inversionParams: ParamGenerator = (rng) => {
+  if (rng.next() < 0.4) {
+    const k = rng.uniform(1, 60);
+    return [k, -k, 0]; // the planar form, ω0 = 0
+  }
+  return seriesParams(rng, 5, 85);
+};
+
 /** Random parameters of every kind, in its internal layout. */
 export const PARAMS: Readonly<Record<TermKind, ParamGenerator>> = {
   'harmonic-bond': bondParams,
@@ -62,6 +83,9 @@ export const PARAMS: Readonly<Record<TermKind, ParamGenerator>> = {
   'harmonic-improper': improperParams,
   'position-restraint': positionParams,
   'distance-restraint': distanceParams,
+  'cosine-series-angle': cosineSeriesParams,
+  'periodic-angle': periodicAngleParams,
+  inversion: inversionParams,
 };
 
 /** Two atoms at distance r, randomly placed. */
@@ -87,6 +111,40 @@ function pickRange(rng: Random, ranges: readonly (readonly [number, number])[]):
   const usable = ranges.filter(([lo, hi]) => hi > lo);
   const [lo, hi] = rng.pick(usable);
   return rng.uniform(lo, hi);
+}
+
+/**
+ * A centre (atom 0) and three neighbours 0.9–2 Å away at azimuths near 0°,
+ * 120° and 240° (±35°) and elevations in [−60°, 60°], randomly placed; drawn
+ * again until every angle neighbour–centre–neighbour is 25°–165° and every
+ * out-of-plane angle |ω| of the three choices is below 80°, so the stencil
+ * stays away from the cone-shaped points at |ω| = 90° and from undefined planes.
+ */
+export function randomCentre(rng: Random): Float64Array {
+  for (;;) {
+    const x = new Float64Array(12);
+    for (let m = 1; m <= 3; m++) {
+      const r = rng.uniform(0.9, 2);
+      const azimuth = rad(120 * (m - 1) + rng.uniform(-35, 35));
+      const elevation = rad(rng.uniform(-60, 60));
+      x[3 * m] = r * Math.cos(elevation) * Math.cos(azimuth);
+      x[3 * m + 1] = r * Math.cos(elevation) * Math.sin(azimuth);
+      x[3 * m + 2] = r * Math.sin(elevation);
+    }
+    const angles = [angleAt(x, 1, 2), angleAt(x, 2, 3), angleAt(x, 3, 1)];
+    const omegas = [outOfPlaneAngle(x, 0, 1, 2, 3), outOfPlaneAngle(x, 0, 2, 3, 1), outOfPlaneAngle(x, 0, 3, 1, 2)];
+    if (angles.every((a) => a > rad(25) && a < rad(165)) && omegas.every((w) => Math.abs(w) < rad(80))) {
+      return applyMotion(x, randomRigidMotion(rng));
+    }
+  }
+}
+
+/** Angle a–0–b at the origin atom 0 (radians). */
+function angleAt(x: Float64Array, a: number, b: number): number {
+  const dot = x[3 * a] * x[3 * b] + x[3 * a + 1] * x[3 * b + 1] + x[3 * a + 2] * x[3 * b + 2];
+  const ra = Math.hypot(x[3 * a], x[3 * a + 1], x[3 * a + 2]);
+  const rb = Math.hypot(x[3 * b], x[3 * b + 1], x[3 * b + 2]);
+  return Math.acos(dot / (ra * rb));
 }
 
 /** A random case of every kind. */
@@ -141,6 +199,17 @@ export const CASES: Readonly<Record<TermKind, CaseGenerator>> = {
     const [ux, uy, uz] = rng.unitVector();
     return { params, x: new Float64Array([params[1] + r * ux, params[2] + r * uy, params[3] + r * uz]) };
   },
+  'cosine-series-angle': (rng) => {
+    const params = cosineSeriesParams(rng);
+    const x = triangle(rng.uniform(0.8, 2), rng.uniform(0.8, 2), rad(rng.uniform(5, 175)));
+    return { params, x: applyMotion(x, randomRigidMotion(rng)) };
+  },
+  'periodic-angle': (rng) => {
+    const params = periodicAngleParams(rng);
+    const x = triangle(rng.uniform(0.8, 2), rng.uniform(0.8, 2), rad(rng.uniform(5, 175)));
+    return { params, x: applyMotion(x, randomRigidMotion(rng)) };
+  },
+  inversion: (rng) => ({ params: inversionParams(rng), x: randomCentre(rng) }),
   'distance-restraint': (rng) => {
     const params = distanceParams(rng);
     const [, lower, upper] = params;

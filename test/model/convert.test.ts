@@ -91,6 +91,16 @@ describe('convertModelUnits', () => {
     expectRelative(dr.k, 3 * 418.4);
     expectRelative(dr.lower, 0.3);
     expectRelative(dr.upper, 0.42);
+    // extensions (docs/model-file.md): k is an energy per radian², angles stay degrees
+    const cs = term(out, 'cosine-series-angle');
+    expectRelative(cs.k, 90 * 4.184);
+    expect(cs.theta0).toBe(109.47);
+    const pa = term(out, 'periodic-angle');
+    expectRelative(pa.k, 40 * 4.184);
+    expect([pa.n, pa.theta0]).toEqual([3, 120]);
+    const inv = term(out, 'inversion');
+    expectRelative(inv.k, 6 * 4.184);
+    expect(inv.omega0).toBe(0);
   });
 
   it('converts nonbonded lengths and energies, and the constraint length', () => {

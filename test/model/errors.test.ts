@@ -10,7 +10,7 @@ import { readModelFile } from '../../src/model/validate.js';
 import { allKindsAngstrom, chain, edited, expectModelError, type Loose, specExample } from './fixtures.js';
 
 const KNOWN_KINDS =
-  'harmonic-bond, morse-bond, harmonic-angle, cosine-angle, urey-bradley, periodic-dihedral, ryckaert-bellemans, harmonic-improper, position-restraint, distance-restraint';
+  'harmonic-bond, morse-bond, harmonic-angle, cosine-angle, urey-bradley, periodic-dihedral, ryckaert-bellemans, harmonic-improper, position-restraint, distance-restraint, cosine-series-angle, periodic-angle, inversion';
 const TOP_KEYS = 'format, version, units, atoms, coordinates, terms, bonds, nonbonded, frozen, constraints, title, metadata';
 const RANGE_40 = 'index 40 is out of range (model has 31 atoms)';
 
@@ -171,10 +171,15 @@ describe('terms', () => {
     'harmonic-improper': ['k', 'xi0'],
     'position-restraint': ['k', 'x0', 'flat'],
     'distance-restraint': ['k', 'lower', 'upper'],
+    // extensions, docs/model-file.md
+    'cosine-series-angle': ['k', 'theta0'],
+    'periodic-angle': ['k', 'n', 'theta0'],
+    inversion: ['k', 'omega0'],
   };
   const ARITY: Record<string, number> = {
     'harmonic-bond': 2, 'morse-bond': 2, 'harmonic-angle': 3, 'cosine-angle': 3, 'urey-bradley': 3,
     'periodic-dihedral': 4, 'ryckaert-bellemans': 4, 'harmonic-improper': 4, 'position-restraint': 1, 'distance-restraint': 2,
+    'cosine-series-angle': 3, 'periodic-angle': 3, inversion: 4,
   };
   const model = allKindsAngstrom();
   const termIndex = (kind: string) => (model.terms as Loose[]).findIndex((t) => t.kind === kind);

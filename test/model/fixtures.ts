@@ -36,7 +36,8 @@ export function specExample(): Loose {
 }
 
 /**
- * A small model using every term kind, nonbonded pairs, frozen atoms and a
+ * A small model using every term kind (the ten of version 1 and the three
+ * extensions of docs/model-file.md), nonbonded pairs, frozen atoms and a
  * constraint, in ångström and kcal/mol. Five atoms; atoms 0 and 4 are 5 Å
  * apart (a 3-4-5 triangle), so the constraint's default length is exactly 5.
  */
@@ -73,6 +74,9 @@ export function allKindsAngstrom(): Loose {
       { kind: 'position-restraint', atoms: [3], k: 5, x0: [3.5, 1.4, 0], flat: 0.2 },
       { kind: 'position-restraint', atoms: [2], k: 5, x0: [2, 1.5, 0] },
       { kind: 'distance-restraint', atoms: [0, 3], k: 3, lower: 3, upper: 4.2 },
+      { kind: 'cosine-series-angle', atoms: [0, 1, 2], k: 90, theta0: 109.47 },
+      { kind: 'periodic-angle', atoms: [1, 2, 3], k: 40, n: 3, theta0: 120 },
+      { kind: 'inversion', atoms: [1, 0, 2, 4], k: 6, omega0: 0 },
     ],
     nonbonded: {
       lennardJones: {
@@ -112,6 +116,9 @@ export function allKindsNanometer(): Loose {
     { kind: 'harmonic-improper', atoms: [1, 0, 2, 3], k: 41.8, xi0: 0 },
     { kind: 'position-restraint', atoms: [3], k: 1000, x0: [0.35, 0.14, 0], flat: 0 },
     { kind: 'distance-restraint', atoms: [0, 3], k: 1000, lower: 0.3, upper: 0.3 },
+    { kind: 'cosine-series-angle', atoms: [0, 1, 2], k: 380, theta0: 120 },
+    { kind: 'periodic-angle', atoms: [1, 2, 3], k: 200, n: 1, theta0: 180 },
+    { kind: 'inversion', atoms: [1, 0, 2, 4], k: 90, omega0: 84.4339 },
   ];
   m.nonbonded = {
     lennardJones: { rmin: [0.38, 0.38, 0.38, 0.38, 0.26], epsilon: [0.4, 0.4, 0.4, 0.4, 0.08], combination: 'geometric' },

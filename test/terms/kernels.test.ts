@@ -2,7 +2,13 @@
  * The kernel registry and accumulateAll of src/terms/kernels.ts.
  */
 import { describe, expect, it } from 'vitest';
-import { accumulateCosineAngles, accumulateHarmonicAngles } from '../../src/terms/angle.js';
+import {
+  accumulateCosineAngles,
+  accumulateCosineSeriesAngles,
+  accumulateHarmonicAngles,
+  accumulatePeriodicAngles,
+} from '../../src/terms/angle.js';
+import { accumulateInversions } from '../../src/terms/inversion.js';
 import { accumulateHarmonicBonds, accumulateMorseBonds, accumulateUreyBradley } from '../../src/terms/bond.js';
 import { accumulateAll, KERNELS } from '../../src/terms/kernels.js';
 import { accumulateDistanceRestraints, accumulatePositionRestraints } from '../../src/terms/restraint.js';
@@ -51,6 +57,9 @@ describe('KERNELS', () => {
       'harmonic-improper': accumulateHarmonicImpropers,
       'position-restraint': accumulatePositionRestraints,
       'distance-restraint': accumulateDistanceRestraints,
+      'cosine-series-angle': accumulateCosineSeriesAngles,
+      'periodic-angle': accumulatePeriodicAngles,
+      inversion: accumulateInversions,
     });
   });
 
@@ -78,6 +87,9 @@ describe('KERNELS', () => {
       'harmonic-improper': 4,
       'position-restraint': 1,
       'distance-restraint': 2,
+      'cosine-series-angle': 3,
+      'periodic-angle': 3,
+      inversion: 4,
     });
   });
 });
