@@ -59,3 +59,16 @@ export { relaxModel } from './model/relax.js';
 export type { RelaxOptions, RelaxResult } from './model/relax.js';
 export { writeFileWhole } from './io/write-file.js';
 export { xyzFrame } from './io/xyz.js';
+
+export {
+  perceiveBonds,
+  perceiveBondOrders,
+  perceiveTopology,
+  covalentRadius,
+  COVALENT_RADIUS_ELEMENTS,
+  DEFAULT_BOND_TOLERANCE,
+  HYDROGEN_PAIR_TOLERANCE,
+  MULTIPLE_BOND_RATIO,
+  TRIPLE_BOND_RATIO,
+} from './perceive/index.js';
+export type { BondPerceptionOptions, TopologyInput, Topology, Hybridization } from './perceive/index.js';
