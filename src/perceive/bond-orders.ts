@@ -375,8 +375,9 @@ function matchRemaining(
  * Maximum matching of a general graph (CSR, `m` vertices): greedy start in
  * adjacency order, then one augmenting-path search per unmatched vertex
  * (Edmonds 1965, blossom contraction). `match[v]` is v's partner or −1.
+ * Internal to perceive/ (exported for its tests). Never throws.
  */
-function maximumMatching(m: number, adjStart: Int32Array, adj: Int32Array): Int32Array {
+export function maximumMatching(m: number, adjStart: Int32Array, adj: Int32Array): Int32Array {
   const match = new Int32Array(m).fill(-1);
   for (let v = 0; v < m; v++) {
     if (match[v] !== -1) continue;
