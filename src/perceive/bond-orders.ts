@@ -390,45 +390,65 @@ export function maximumMatching(m: number, adjStart: Int32Array, adj: Int32Array
       }
     }
   }
-  const parent = new Int32Array(m);
+  // Search state, reset only where a search touched it (so each search costs
+  // the size of the tree it grows, not m).
+  const parent = new Int32Array(m).fill(-1);
   const base = new Int32Array(m);
+  for (let i = 0; i < m; i++) base[i] = i;
   const used = new Uint8Array(m);
-  const inBlossom = new Uint8Array(m);
-  const onPath = new Uint8Array(m);
+  const inBlossom = new Int32Array(m);
+  const onPath = new Int32Array(m);
   const queue = new Int32Array(m);
+  const touched = new Int32Array(m);
+  const isTouched = new Uint8Array(m);
+  let touchedCount = 0;
+  let stamp = 0;
+  const touch = (i: number): void => {
+    if (!isTouched[i]) {
+      isTouched[i] = 1;
+      touched[touchedCount++] = i;
+    }
+  };
 
   const commonBase = (a0: number, b0: number): number => {
-    onPath.fill(0);
+    const tag = ++stamp;
     let a = a0;
     for (;;) {
       a = base[a];
-      onPath[a] = 1;
+      onPath[a] = tag;
       if (match[a] === -1) break;
       a = parent[match[a]];
     }
     let b = b0;
     for (;;) {
       b = base[b];
-      if (onPath[b]) return b;
+      if (onPath[b] === tag) return b;
       b = parent[match[b]];
     }
   };
-  const markPath = (v0: number, b: number, child0: number): void => {
+  const markPath = (v0: number, b: number, child0: number, tag: number): void => {
     let v = v0;
     let child = child0;
     while (base[v] !== b) {
-      inBlossom[base[v]] = 1;
-      inBlossom[base[match[v]]] = 1;
+      inBlossom[base[v]] = tag;
+      inBlossom[base[match[v]]] = tag;
       parent[v] = child;
+      touch(v);
       child = match[v];
       v = parent[match[v]];
     }
   };
   const augmentFrom = (root: number): number => {
-    used.fill(0);
-    parent.fill(-1);
-    for (let i = 0; i < m; i++) base[i] = i;
+    for (let t = 0; t < touchedCount; t++) {
+      const i = touched[t];
+      used[i] = 0;
+      parent[i] = -1;
+      base[i] = i;
+      isTouched[i] = 0;
+    }
+    touchedCount = 0;
     used[root] = 1;
+    touch(root);
     let qh = 0;
     let qt = 0;
     queue[qt++] = root;
@@ -439,11 +459,13 @@ export function maximumMatching(m: number, adjStart: Int32Array, adj: Int32Array
         if (base[v] === base[to] || match[v] === to) continue;
         if (to === root || (match[to] !== -1 && parent[match[to]] !== -1)) {
           const cb = commonBase(v, to);
-          inBlossom.fill(0);
-          markPath(v, cb, to);
-          markPath(to, cb, v);
-          for (let i = 0; i < m; i++) {
-            if (inBlossom[base[i]]) {
+          const tag = ++stamp;
+          markPath(v, cb, to, tag);
+          markPath(to, cb, v, tag);
+          // Every vertex of a blossom is already in the tree, i.e. touched.
+          for (let u = 0; u < touchedCount; u++) {
+            const i = touched[u];
+            if (inBlossom[base[i]] === tag) {
               base[i] = cb;
               if (!used[i]) {
                 used[i] = 1;
@@ -453,10 +475,12 @@ export function maximumMatching(m: number, adjStart: Int32Array, adj: Int32Array
           }
         } else if (parent[to] === -1) {
           parent[to] = v;
+          touch(to);
           if (match[to] === -1) return to;
           const mt = match[to];
           if (!used[mt]) {
             used[mt] = 1;
+            touch(mt);
             queue[qt++] = mt;
           }
         }

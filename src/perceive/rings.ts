@@ -53,8 +53,10 @@ export function smallestRings(atomCount: number, bonds: Int32Array, lists: Neigh
   const stack = new Int32Array(n);
   const edgeStack = new Int32Array(bondCount);
   const blockOfEdge = new Int32Array(bondCount).fill(-1);
-  const blockEdges: number[] = [];
-  const blockStart: number[] = [0];
+  const blockEdges = new Int32Array(bondCount);
+  const blockStart = new Int32Array(bondCount + 1);
+  let blockCount = 0;
+  let blockFill = 0;
   let time = 0;
   let es = 0;
   for (let r = 0; r < n; r++) {
@@ -86,14 +88,14 @@ export function smallestRings(atomCount: number, bonds: Int32Array, lists: Neigh
         const p = stack[sp - 1];
         if (low[v] < low[p]) low[p] = low[v];
         if (low[v] >= disc[p]) {
-          const id = blockStart.length - 1;
+          const id = blockCount++;
           let e: number;
           do {
             e = edgeStack[--es];
             blockOfEdge[e] = id;
-            blockEdges.push(e);
+            blockEdges[blockFill++] = e;
           } while (e !== parentEdge[v]);
-          blockStart.push(blockEdges.length);
+          blockStart[blockCount] = blockFill;
         }
       }
     }
@@ -103,7 +105,7 @@ export function smallestRings(atomCount: number, bonds: Int32Array, lists: Neigh
   const seen = new Int32Array(n).fill(-1); // block id that last listed the atom
   const work = new SearchSpace(n);
   const blockVertices: number[] = [];
-  for (let id = 0; id + 1 < blockStart.length; id++) {
+  for (let id = 0; id < blockCount; id++) {
     const e0 = blockStart[id];
     const e1 = blockStart[id + 1];
     if (e1 - e0 < 3) continue; // a bridge (blocks of two bonds cannot exist without multi-bonds)
@@ -125,7 +127,7 @@ export function smallestRings(atomCount: number, bonds: Int32Array, lists: Neigh
       continue;
     }
     const kept = new Basis();
-    const keys = new Set<string>();
+    const keys = new Map<number, Int32Array[]>(); // hash of the bond set → bond sets seen
     const consider = (list: Candidate[]): void => {
       list.sort((p, q) => p.atoms.length - q.atoms.length);
       for (const c of list) {
@@ -135,9 +137,12 @@ export function smallestRings(atomCount: number, bonds: Int32Array, lists: Neigh
     };
     const fresh = (c: Candidate | null, out: Candidate[]): void => {
       if (c === null) return;
-      const key = c.edges.join(',');
-      if (keys.has(key)) return;
-      keys.add(key);
+      let hash = c.edges.length;
+      for (let t = 0; t < c.edges.length; t++) hash = Math.imul(hash ^ c.edges[t], 0x9e3779b1) + t;
+      const same = keys.get(hash);
+      if (same === undefined) keys.set(hash, [c.edges]);
+      else if (same.some((edges) => sameEdges(edges, c.edges))) return;
+      else same.push(c.edges);
       out.push(c);
     };
     if (blockVertices.length > HORTON_BLOCK_LIMIT) {
@@ -216,6 +221,12 @@ class Basis {
     }
     return false;
   }
+}
+
+function sameEdges(a: Int32Array, b: Int32Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let t = 0; t < a.length; t++) if (a[t] !== b[t]) return false;
+  return true;
 }
 
 function symmetricDifference(a: Int32Array, b: Int32Array): Int32Array {
@@ -312,7 +323,7 @@ class SearchSpace {
     bonds: Int32Array,
     lists: NeighbourLists,
     inBlock: (s: number) => boolean,
-    blockEdges: readonly number[],
+    blockEdges: Int32Array,
     e0: number,
     e1: number,
     emit: (c: Candidate) => void,
