@@ -13,8 +13,9 @@
  *   with two, as in furan and thiophene; N⁻ with two; C⁻ with three). Any
  *   other atom (sp3, a triple bond, two double bonds, an exocyclic C=C) is
  *   not sp2-able and the ring cannot be aromatic.
- * - A ring is aromatic when all its atoms are sp2-able and their electrons
- *   sum to 4n + 2. Then, for each fused system (rings sharing bonds) that is
+ * - A ring is aromatic when all its atoms are sp2-able, at least one of
+ *   them is not a lone-pair donor (a ring of N, O, S with single bonds only
+ *   has no π bond), and their electrons sum to 4n + 2. Then, for each fused system (rings sharing bonds) that is
  *   not yet wholly aromatic and whose rings are all sp2-able, the electrons
  *   of all its atoms (each counted once) are summed; 4n + 2 makes every ring
  *   of the system aromatic (azulene: 5 + 7 ring atoms, 10 electrons).
@@ -113,13 +114,17 @@ export function findAromatic(
     electrons[a] = count;
   }
 
+  // −1 when an atom is not sp2-able; −2 when every atom only gives a lone pair
+  // (a saturated ring of N, O or S, such as a cyclic trisulfide: no π bond at all).
   const ringSum = (ring: Int32Array): number => {
     let sum = 0;
+    let pi = false;
     for (const a of ring) {
       if (electrons[a] < 0) return -1;
+      if (electrons[a] !== 2) pi = true;
       sum += electrons[a];
     }
-    return sum;
+    return pi ? sum : -2;
   };
   const aromaticRing = new Uint8Array(rings.length);
   rings.forEach((ring, r) => {
@@ -140,7 +145,7 @@ export function findAromatic(
   const counted = new Uint8Array(n);
   for (const list of members.values()) {
     if (list.length < 2 || list.every((r) => aromaticRing[r] === 1)) continue;
-    if (list.some((r) => ringSum(rings[r]) < 0)) continue;
+    if (list.some((r) => ringSum(rings[r]) === -1)) continue;
     let sum = 0;
     for (const r of list) {
       for (const a of rings[r]) {

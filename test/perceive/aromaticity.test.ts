@@ -66,6 +66,15 @@ describe('aromaticity from given bond orders', () => {
       for (let b = 0; b < t.bondOrders.length; b++) expect(t.bondOrders[b]).toBe(given.get(`${t.bonds[2 * b]}-${t.bonds[2 * b + 1]}`));
     }
   });
+  it('a saturated ring of lone-pair donors (cyclic S₃, 6 "lone-pair" electrons) is not aromatic: it has no π bond', () => {
+    const t = ofGraph(M.graph('trithiirane', ['S', 'S', 'S'], ring(3, [1, 1, 1])));
+    expect(Array.from(t.aromaticAtoms)).toEqual([0, 0, 0]);
+  });
+  it('borazine B₃N₃H₆ drawn with single bonds is aromatic (B 0 + N 2 electrons, 6 in all)', () => {
+    const edges: [number, number, number][] = [...ring(6, Array(6).fill(1)), ...Array.from({ length: 6 }, (_, a) => [a, 6 + a, 1] as [number, number, number])];
+    const t = ofGraph(M.graph('borazine', ['B', 'N', 'B', 'N', 'B', 'N', 'H', 'H', 'H', 'H', 'H', 'H'], edges));
+    expect(Array.from(t.aromaticAtoms.subarray(0, 6))).toEqual([1, 1, 1, 1, 1, 1]);
+  });
   it('benzene given with orders 1.5 is aromatic as given', () => {
     expectAromaticRings(ofGraph(M.graph('benzene', Array(6).fill('C'), ring(6, Array(6).fill(1.5)), false)));
   });
