@@ -202,7 +202,7 @@ export function kekuleOrders(
   }
 
   // Step 3: forced choices.
-  const available = (a: number, s: number): boolean => {
+  const available = (s: number): boolean => {
     const b = bondOf[s];
     return unsat[neighbours[s]] > 0 && extra[b] < capacity[b];
   };
@@ -225,7 +225,7 @@ export function kekuleOrders(
     let only = -1;
     let count = 0;
     for (let s = start[a]; s < start[a + 1]; s++) {
-      if (available(a, s)) {
+      if (available(s)) {
         count++;
         only = s;
       }
@@ -257,14 +257,14 @@ export function kekuleOrders(
   for (let a = 0; a < n; a++) {
     if (unsat[a] < 2) continue;
     slots.length = 0;
-    for (let s = start[a]; s < start[a + 1]; s++) if (available(a, s)) slots.push(s);
+    for (let s = start[a]; s < start[a + 1]; s++) if (available(s)) slots.push(s);
     slots.sort((p, q) => ratio[bondOf[p]] - ratio[bondOf[q]] || p - q);
     let progress = true;
     while (unsat[a] > 0 && progress) {
       progress = false;
       for (const s of slots) {
         if (unsat[a] === 0) break;
-        if (!available(a, s)) continue;
+        if (!available(s)) continue;
         extra[bondOf[s]]++;
         unsat[a]--;
         unsat[neighbours[s]]--;

@@ -104,11 +104,8 @@ export function canonicalBonds(bonds: Int32Array, atomCount: number): CanonicalB
   for (let b = 0; b < bondCount; b++) {
     const i = bonds[2 * b];
     const j = bonds[2 * b + 1];
-    for (const v of [i, j]) {
-      if (v < 0 || v >= atomCount) {
-        throw new ModelError(`bonds[${b}]`, `index ${v} is out of range (molecule has ${atomCount} atoms)`);
-      }
-    }
+    const bad = i < 0 || i >= atomCount ? i : j < 0 || j >= atomCount ? j : null;
+    if (bad !== null) throw new ModelError(`bonds[${b}]`, `index ${bad} is out of range (molecule has ${atomCount} atoms)`);
     if (i === j) throw new ModelError(`bonds[${b}]`, `atom ${i} is bonded to itself`);
     if (canonical && (i > j || (b > 0 && (bonds[2 * b - 2] > i || (bonds[2 * b - 2] === i && bonds[2 * b - 1] >= j))))) {
       canonical = false;

@@ -39,9 +39,16 @@ interface Candidate {
  * atoms in ring order, starting at its smallest index and going on towards
  * the smaller of that atom's two ring neighbours. Rings are sorted by size,
  * then by atom sequence. Internal to perceive/ (topology perception exposes
- * the result). Never throws.
+ * the result). `hortonLimit` (default {@link HORTON_BLOCK_LIMIT}) is the
+ * largest block solved with Horton's full set; tests lower or raise it to
+ * compare the two candidate sets. Never throws.
  */
-export function smallestRings(atomCount: number, bonds: Int32Array, lists: NeighbourLists): Int32Array[] {
+export function smallestRings(
+  atomCount: number,
+  bonds: Int32Array,
+  lists: NeighbourLists,
+  hortonLimit: number = HORTON_BLOCK_LIMIT,
+): Int32Array[] {
   const { start, neighbours, bondOf } = lists;
   const bondCount = bonds.length >> 1;
   const n = atomCount;
@@ -145,7 +152,7 @@ export function smallestRings(atomCount: number, bonds: Int32Array, lists: Neigh
       else same.push(c.edges);
       out.push(c);
     };
-    if (blockVertices.length > HORTON_BLOCK_LIMIT) {
+    if (blockVertices.length > hortonLimit) {
       const local: Candidate[] = [];
       for (let t = e0; t < e1; t++) fresh(work.shortestCycleThrough(blockEdges[t], bonds, lists, inBlock), local);
       consider(local);
