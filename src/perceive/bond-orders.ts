@@ -76,10 +76,11 @@ function chargedValence(rule: ValenceRule, valence: number, q: number): number {
 }
 
 /**
- * Checks elements, bonds and optional charges and coordinates of a bond
- * graph and returns the bonds in canonical order. Shared with topology.
+ * Checks optional formal charges (one Int32 per atom) and returns them, or
+ * all zeros when absent. Internal to perceive/ (shared with topology).
+ * @throws ModelError `formalCharges: expected 31 charges (one per atom), got 30`.
  */
-function checkCharges(formalCharges: Int32Array | null | undefined, atomCount: number): Int32Array {
+export function checkCharges(formalCharges: Int32Array | null | undefined, atomCount: number): Int32Array {
   if (formalCharges === null || formalCharges === undefined) return new Int32Array(atomCount);
   if (!(formalCharges instanceof Int32Array)) throw new ModelError('formalCharges', 'expected an Int32Array, one per atom');
   if (formalCharges.length !== atomCount) {

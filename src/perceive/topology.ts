@@ -9,7 +9,7 @@
  */
 import { ModelError } from '../errors.js';
 import { findAromatic } from './aromaticity.js';
-import { checkElements, kekuleOrders } from './bond-orders.js';
+import { checkCharges, checkElements, kekuleOrders } from './bond-orders.js';
 import { bondBetween, canonicalBonds, checkCoordinates, neighbourLists } from './graph.js';
 import type { NeighbourLists } from './graph.js';
 import { assignHybridization } from './hybridization.js';
@@ -61,17 +61,8 @@ export function perceiveTopology(input: TopologyInput): Topology {
   const bonds = canonical.unchanged ? canonical.bonds.slice() : canonical.bonds;
   const bondCount = bonds.length >> 1;
 
-  let charges: Int32Array;
-  if (input.formalCharges === null || input.formalCharges === undefined) charges = new Int32Array(n);
-  else {
-    if (!(input.formalCharges instanceof Int32Array)) {
-      throw new ModelError('formalCharges', 'expected an Int32Array, one per atom');
-    }
-    if (input.formalCharges.length !== n) {
-      throw new ModelError('formalCharges', `expected ${n} charges (one per atom), got ${input.formalCharges.length}`);
-    }
-    charges = input.formalCharges.slice();
-  }
+  // A copy: the topology never shares the caller's arrays.
+  const charges = checkCharges(input.formalCharges, n).slice();
   if (input.coordinates !== undefined) checkCoordinates(input.coordinates, n);
 
   const lists = neighbourLists(n, bonds);

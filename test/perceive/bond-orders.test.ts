@@ -107,6 +107,11 @@ describe('perceiveBondOrders', () => {
       const orders = g(symbols, edges);
       expect([orders[0], orders[1]].sort()).toEqual([1, 2]);
     });
+    it('nitromethane with its charges (N⁺, O⁻): the neutral O gets the double bond', () => {
+      const symbols = ['N', 'O', 'O', 'C', 'H', 'H', 'H'];
+      const edges: [number, number][] = [[0, 1], [0, 2], [0, 3], [3, 4], [3, 5], [3, 6]];
+      expect(g(symbols, edges, [1, -1, 0, 0, 0, 0, 0]).slice(0, 3)).toEqual([1, 2, 1]);
+    });
     it('ammonium and hydroxide with their charges stay single; formaldehyde gets C=O', () => {
       expect(g(['N', 'H', 'H', 'H', 'H'], [[0, 1], [0, 2], [0, 3], [0, 4]], [1, 0, 0, 0, 0])).toEqual([1, 1, 1, 1]);
       expect(g(['C', 'O', 'H', 'H'], [[0, 1], [0, 2], [0, 3]])).toEqual([2, 1, 1]);
