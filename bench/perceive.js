@@ -7,11 +7,12 @@
 //   phenylene  poly(p-phenylene), H–(C6H4)_m–H: hexagons of side 1.40 Å linked by 1.48 Å bonds
 //              (a polymer of isolated aromatic rings)
 //   acene      a ladder of m fused hexagons (side 1.40 Å, C–H 1.08 Å): one fused block of m rings
-// Prints the median of a few runs for each step; nothing is asserted.
+// Prints the median of several runs for each step (after one warm-up run); nothing is asserted.
 import { performance } from 'node:perf_hooks';
 import { perceiveBonds, perceiveTopology } from '../dist/index.js';
 
-const RUNS = 5;
+// Runs per case (the first is a warm-up for the JIT and is not counted).
+const runsFor = (atoms) => (atoms <= 1e4 ? 21 : 6);
 
 function alkane(targetAtoms) {
   const n = Math.max(2, Math.round((targetAtoms - 2) / 3));
@@ -114,12 +115,13 @@ for (const build of [alkane, phenylene, acene]) {
     const tt = [];
     let bonds;
     let topology;
-    for (let r = 0; r < RUNS; r++) {
+    const runs = runsFor(target);
+    for (let r = 0; r < runs; r++) {
       let dt;
       [dt, bonds] = time(() => perceiveBonds(elements, x));
-      tb.push(dt);
+      if (r > 0) tb.push(dt);
       [dt, topology] = time(() => perceiveTopology({ elements, bonds, coordinates: x }));
-      tt.push(dt);
+      if (r > 0) tt.push(dt);
     }
     const b = median(tb);
     const t = median(tt);

@@ -282,20 +282,24 @@ export function kekuleOrders(
   return orders;
 }
 
+/** Angle p–a–q in degrees (atan2 form, accurate near 0° and 180°). Never throws. */
+function angleAt(x: Float64Array, a: number, p: number, q: number): number {
+  const ux = x[3 * p] - x[3 * a], uy = x[3 * p + 1] - x[3 * a + 1], uz = x[3 * p + 2] - x[3 * a + 2];
+  const vx = x[3 * q] - x[3 * a], vy = x[3 * q + 1] - x[3 * a + 1], vz = x[3 * q + 2] - x[3 * a + 2];
+  const cx = uy * vz - uz * vy, cy = uz * vx - ux * vz, cz = ux * vy - uy * vx;
+  return (Math.atan2(Math.sqrt(cx * cx + cy * cy + cz * cz), ux * vx + uy * vy + uz * vz) * 180) / Math.PI;
+}
+
 /** Largest number of π bonds the geometry allows a second-row atom (step 2). */
 function geometricCap(x: Float64Array, a: number, neighbours: Int32Array, s0: number, s1: number): number {
   const d = s1 - s0;
   if (d >= 4) return 0;
   if (d <= 1) return 3;
-  const angle = (p: number, q: number): number => {
-    const ux = x[3 * p] - x[3 * a], uy = x[3 * p + 1] - x[3 * a + 1], uz = x[3 * p + 2] - x[3 * a + 2];
-    const vx = x[3 * q] - x[3 * a], vy = x[3 * q + 1] - x[3 * a + 1], vz = x[3 * q + 2] - x[3 * a + 2];
-    const cx = uy * vz - uz * vy, cy = uz * vx - ux * vz, cz = ux * vy - uy * vx;
-    return (Math.atan2(Math.sqrt(cx * cx + cy * cy + cz * cz), ux * vx + uy * vy + uz * vz) * 180) / Math.PI;
-  };
-  if (d === 2) return angle(neighbours[s0], neighbours[s0 + 1]) >= 165 ? 2 : 1;
-  const [p, q, r] = [neighbours[s0], neighbours[s0 + 1], neighbours[s0 + 2]];
-  return angle(p, q) + angle(q, r) + angle(p, r) >= 345 ? 1 : 0;
+  const p = neighbours[s0];
+  const q = neighbours[s0 + 1];
+  if (d === 2) return angleAt(x, a, p, q) >= 165 ? 2 : 1;
+  const r = neighbours[s0 + 2];
+  return angleAt(x, a, p, q) + angleAt(x, a, q, r) + angleAt(x, a, p, r) >= 345 ? 1 : 0;
 }
 
 /**
@@ -347,13 +351,22 @@ function matchRemaining(
     const adjSlot = new Int32Array(adjStart[m]);
     for (let v = 0; v < m; v++) {
       const a = members[v];
-      const list: number[] = [];
-      for (let s = start[a]; s < start[a + 1]; s++) if (usable(s)) list.push(s);
-      list.sort((p, q) => ratio[bondOf[p]] - ratio[bondOf[q]] || neighbours[p] - neighbours[q]);
-      for (let t = 0; t < list.length; t++) {
-        adj[adjStart[v] + t] = local[neighbours[list[t]]];
-        adjSlot[adjStart[v] + t] = list[t];
+      const t0 = adjStart[v];
+      let t1 = t0;
+      // Insertion by (bond length ratio, neighbour index): a few neighbours each.
+      for (let s = start[a]; s < start[a + 1]; s++) {
+        if (!usable(s)) continue;
+        let t = t1++;
+        while (t > t0) {
+          const prev = adjSlot[t - 1];
+          const dr = ratio[bondOf[prev]] - ratio[bondOf[s]];
+          if (dr < 0 || (dr === 0 && neighbours[prev] < neighbours[s])) break;
+          adjSlot[t] = prev;
+          t--;
+        }
+        adjSlot[t] = s;
       }
+      for (let t = t0; t < t1; t++) adj[t] = local[neighbours[adjSlot[t]]];
     }
     const match = maximumMatching(m, adjStart, adj);
     for (let v = 0; v < m; v++) {
