@@ -30,8 +30,8 @@ export interface TopologyInput {
   readonly bondOrders?: Float64Array | null;
   /** Formal charges, one per atom; null/absent means all 0. */
   readonly formalCharges?: Int32Array | null;
-  /** Flat `[x0, y0, z0, …]` in Å; only used to perceive bond orders. */
-  readonly coordinates?: Float64Array;
+  /** Flat `[x0, y0, z0, …]` in Å, or null/absent; only used to perceive bond orders. */
+  readonly coordinates?: Float64Array | null;
 }
 
 const ORDERS = new Set([1, 1.5, 2, 3]);
@@ -63,13 +63,14 @@ export function perceiveTopology(input: TopologyInput): Topology {
 
   // A copy: the topology never shares the caller's arrays.
   const charges = checkCharges(input.formalCharges, n).slice();
-  if (input.coordinates !== undefined) checkCoordinates(input.coordinates, n);
+  const coordinates = input.coordinates ?? null;
+  if (coordinates !== null) checkCoordinates(coordinates, n);
 
   const lists = neighbourLists(n, bonds);
   let orders: Float64Array;
   if (input.bondOrders === null || input.bondOrders === undefined) {
-    orders = input.coordinates !== undefined
-      ? kekuleOrders(elements, bonds, lists, input.coordinates, charges)
+    orders = coordinates !== null
+      ? kekuleOrders(elements, bonds, lists, coordinates, charges)
       : new Float64Array(bondCount).fill(1);
   } else {
     const given = input.bondOrders;

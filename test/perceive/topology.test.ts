@@ -216,6 +216,9 @@ describe('perceiveTopology: invariance', () => {
     const m = M.ethylene();
     const t = perceiveTopology({ elements: m.elements, bonds: m.bonds });
     expect(Array.from(t.bondOrders)).toEqual([1, 1, 1, 1, 1]);
+    expect(Array.from(perceiveTopology({ elements: m.elements, bonds: m.bonds, coordinates: null }).bondOrders)).toEqual([1, 1, 1, 1, 1]);
+    // With its coordinates, the same input gets its double bond.
+    expect(Array.from(perceiveTopology({ elements: m.elements, bonds: m.bonds, coordinates: m.coordinates }).bondOrders)).toEqual(Array.from(m.orders));
   });
 
   it('does not keep references to the caller’s arrays', () => {
