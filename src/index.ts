@@ -85,3 +85,16 @@ export {
   NONBONDED_ALL,
 } from './terms/nonbonded.js';
 export type { NonbondedPairs, NonbondedParameters, CombinationRule } from './terms/nonbonded.js';
+
+export {
+  perceiveBonds,
+  perceiveBondOrders,
+  perceiveTopology,
+  covalentRadius,
+  COVALENT_RADIUS_ELEMENTS,
+  DEFAULT_BOND_TOLERANCE,
+  HYDROGEN_PAIR_TOLERANCE,
+  MULTIPLE_BOND_RATIO,
+  TRIPLE_BOND_RATIO,
+} from './perceive/index.js';
+export type { BondPerceptionOptions, TopologyInput, Topology, Hybridization } from './perceive/index.js';
