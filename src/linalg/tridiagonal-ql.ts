@@ -1,0 +1,102 @@
+/**
+ * Eigenvalues (and optionally eigenvectors) of a symmetric tridiagonal
+ * matrix by the implicit QL method with Wilkinson shifts.
+ *
+ * Method: Bowdler, Martin, Reinsch & Wilkinson, "The QR and QL algorithms
+ * for symmetric matrices", Numer. Math. 11 (1968) 293; see also Golub &
+ * Van Loan, Matrix Computations, 4th ed. 2013, §8.3. Each sweep works on an
+ * unreduced block l … m (off-diagonals e[l … m−1] non-negligible). The shift
+ * is the eigenvalue of the leading 2×2 block nearer to d[l] (Wilkinson's
+ * choice); the bulge it makes is chased from the bottom of the block to its
+ * top with plane rotations. An off-diagonal counts as negligible when
+ * |e[i]| ≤ ε (|d[i]| + |d[i+1]|) with ε the double-precision unit roundoff.
+ * @module
+ */
+
+const EPSILON = 2 ** -52;
+
+/** Sweeps allowed per eigenvalue before {@link tridiagonalQL} gives up. */
+export const QL_SWEEPS_PER_EIGENVALUE = 60;
+
+/**
+ * Diagonalize the symmetric tridiagonal matrix with diagonal `d` (length n)
+ * and off-diagonal `e` (`e[i]` = T(i, i+1), length ≥ n; `e[n−1]` ignored)
+ * in place.
+ *
+ * Writes: `d` ← the eigenvalues (in no particular order), `e` ← scratch.
+ * When `rows` is given (row-major n×n), every plane rotation G acting on
+ * indices (i, i+1) is applied to rows i and i+1 of it (rows ← Gᵀ rows), so
+ * starting from Qᵀ of A = Q T Qᵀ, row i ends as the eigenvector of A for
+ * `d[i]`; starting from the identity, as that of T.
+ *
+ * @returns the number of sweeps, or −1 − i when eigenvalue i did not
+ *   converge within {@link QL_SWEEPS_PER_EIGENVALUE} sweeps (the caller
+ *   reports it). Never allocates, never throws.
+ */
+export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?: Float64Array): number {
+  let sweeps = 0;
+  if (n > 0) e[n - 1] = 0;
+  for (let l = 0; l < n; l++) {
+    let iterations = 0;
+    for (;;) {
+      // Find the end m of the unreduced block that starts at l.
+      let m = l;
+      for (; m < n - 1; m++) {
+        const scale = Math.abs(d[m]) + Math.abs(d[m + 1]);
+        if (Math.abs(e[m]) <= EPSILON * scale) break;
+      }
+      if (m === l) break;
+      if (iterations++ === QL_SWEEPS_PER_EIGENVALUE) return -1 - l;
+      sweeps++;
+      // Wilkinson shift from the leading 2×2 block [d_l e_l; e_l d_{l+1}].
+      let g = (d[l + 1] - d[l]) / (2 * e[l]);
+      let r = Math.hypot(g, 1);
+      const shift = d[l] - e[l] / (g + (g >= 0 ? r : -r));
+      // Chase the bulge from m − 1 up to l.
+      let s = 1;
+      let c = 1;
+      let p = 0;
+      g = d[m] - shift;
+      let i = m - 1;
+      let underflow = false;
+      for (; i >= l; i--) {
+        const f = s * e[i];
+        const b = c * e[i];
+        r = Math.hypot(f, g);
+        e[i + 1] = r;
+        if (r === 0) {
+          // The rotation vanished: the block splits here; undo the last update and restart.
+          d[i + 1] -= p;
+          e[m] = 0;
+          underflow = true;
+          break;
+        }
+        s = f / r;
+        c = g / r;
+        g = d[i + 1] - p;
+        r = (d[i] - g) * s + 2 * c * b;
+        p = s * r;
+        d[i + 1] = g + p;
+        g = c * r - b;
+        if (rows !== undefined) rotateRows(rows, n, i, c, s);
+      }
+      if (underflow) continue;
+      d[l] -= p;
+      e[l] = g;
+      e[m] = 0;
+    }
+  }
+  return sweeps;
+}
+
+/** The QL step's rotation of rows i and i+1: row_i ← c·row_i − s·row_{i+1}, row_{i+1} ← s·row_i + c·row_{i+1}. */
+function rotateRows(rows: Float64Array, n: number, i: number, c: number, s: number): void {
+  const a = i * n;
+  const b = a + n;
+  for (let k = 0; k < n; k++) {
+    const x = rows[a + k];
+    const y = rows[b + k];
+    rows[b + k] = s * x + c * y;
+    rows[a + k] = c * x - s * y;
+  }
+}
