@@ -66,7 +66,6 @@ export { tridiagonalize, reflectorsTransposed } from './linalg/tridiagonal.js';
 export { tridiagonalQL, QL_SWEEPS_PER_EIGENVALUE } from './linalg/tridiagonal-ql.js';
 export { restrictToComplement } from './linalg/complement.js';
 export type { ComplementRestriction } from './linalg/complement.js';
-export { modelHessian } from './hessian/model.js';
 export { massWeightHessian } from './vibrations/mass-weight.js';
 export { rigidMotions, LINEAR_MOMENT_RATIO } from './vibrations/rigid-motions.js';
 export type { RigidMotions } from './vibrations/rigid-motions.js';
