@@ -59,10 +59,11 @@ export function modesCommand(model: Model, args: ModesArguments, warn: (line: st
   }
   const { modes, stationary } = analysis;
   const u = unitLabels(model.units);
+  if (args.animate !== undefined) checkModeNumber(args.animate, modes.frequencies.length);
   if (!stationary.stationary) {
     warn(
       `strainwise: warning: ${args.file}: not at a stationary point (largest force ${num(stationary.maxForce, 4)} ${u.force} ` +
-        `on atom ${stationary.maxForceAtom}, above ${num(stationary.threshold, 4)}); minimize it first, these modes are not those of a minimum or saddle`,
+        `on atom ${stationary.maxForceAtom}, above ${Number(stationary.threshold.toPrecision(6))}); minimize it first, these modes are not those of a minimum or saddle`,
     );
   }
   if (args.animate !== undefined && args.output !== undefined) writeAnimation(model, analysis, args.animate, args.output);
@@ -97,12 +98,15 @@ export function modesCommand(model: Model, args: ModesArguments, warn: (line: st
   return { stdout: formatModes(model, analysis, args), status: 0 };
 }
 
-function writeAnimation(model: Model, analysis: VibrationalAnalysis, choice: number | 'all', output: string): void {
-  const count = analysis.modes.frequencies.length;
+function checkModeNumber(choice: number | 'all', count: number): void {
   if (count === 0) throw new UsageError('--animate: the model has no vibrations to animate');
   if (choice !== 'all' && choice > count) {
     throw new UsageError(`--animate: there is no mode ${choice} (the model has ${count}; give 1 to ${count} or "all")`);
   }
+}
+
+function writeAnimation(model: Model, analysis: VibrationalAnalysis, choice: number | 'all', output: string): void {
+  const count = analysis.modes.frequencies.length;
   const elements = model.atoms.map((a) => a.element);
   const amplitude = ANIMATION_AMPLITUDE_ANGSTROM / angstromPer(model.units.length);
   const which = choice === 'all' ? Array.from({ length: count }, (_, i) => i) : [choice - 1];
@@ -133,9 +137,11 @@ function formatModes(model: Model, a: VibrationalAnalysis, args: ModesArguments)
   lines.push(`${title}${model.atomCount} atoms, ${modes.frequencies.length} vibrations (${removed})`);
   if (modes.frequencies.length > 0) {
     lines.push('');
+    const flag = modes.imaginaryCount > 0;
     const rows: string[][] = [
-      ['mode', 'wavenumber (cm⁻¹)', 'reduced mass (Da)', `force constant (${u.energy}/${u.length}²)`, `in v = 0 at ${num(t.temperature, 6)} K`, ''],
+      ['mode', 'wavenumber (cm⁻¹)', 'reduced mass (Da)', `force constant (${u.energy}/${u.length}²)`, `in v = 0 at ${t.temperature} K`],
     ];
+    if (flag) rows[0].push('');
     modes.frequencies.forEach((nu, i) => {
       const p = t.populations[i];
       rows.push([
@@ -144,20 +150,20 @@ function formatModes(model: Model, a: VibrationalAnalysis, args: ModesArguments)
         num(modes.reducedMasses[i], 5),
         num(modes.forceConstants[i], 5),
         Number.isNaN(p) ? '—' : p.toFixed(5),
-        nu < 0 ? 'imaginary' : '',
+        ...(flag ? [nu < 0 ? 'imaginary' : ''] : []),
       ]);
     });
     lines.push(table(rows, 'rrrrrl'));
     lines.push('');
-    lines.push(`harmonic vibrational thermochemistry at ${num(t.temperature, 6)} K, per mol:`);
+    lines.push(`harmonic vibrational thermochemistry at ${t.temperature} K, per mol:`);
     const trows: string[][] = [
-      ['quantity', 'value'],
-      ['zero-point energy', `${num(t.zeroPointEnergy, 7)} ${u.energy}`],
-      ['enthalpy (zero-point included)', `${num(t.enthalpy, 7)} ${u.energy}`],
-      ['entropy', `${num(t.entropy, 7)} ${u.energy}/K`],
-      ['free energy H − TS', `${num(t.freeEnergy, 7)} ${u.energy}`],
+      ['quantity', 'value', 'unit'],
+      ['zero-point energy', num(t.zeroPointEnergy, 7), u.energy],
+      ['enthalpy (zero-point included)', num(t.enthalpy, 7), u.energy],
+      ['entropy', num(t.entropy, 7), `${u.energy}/K`],
+      ['free energy H − TS', num(t.freeEnergy, 7), u.energy],
     ];
-    lines.push(table(trows, 'lr'));
+    lines.push(table(trows, 'lrl'));
     if (t.note) lines.push(`(${t.note})`);
   }
   lines.push('');
