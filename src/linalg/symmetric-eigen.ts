@@ -75,7 +75,15 @@ export function symmetricEigen(matrix: Float64Array, n?: number, options: Symmet
     rows = new Float64Array(size * size);
     reflectorsTransposed(a, size, beta, rows, scratch);
   }
-  const sweeps = tridiagonalQL(d, e, size, rows);
+  let known: Float64Array | undefined;
+  if (rows !== undefined && size > 2) {
+    // Eigenvalues first (O(n²)), then the sweeps on the vectors with them as shifts.
+    known = d.slice();
+    const first = tridiagonalQL(known, e.slice(), size);
+    if (first < 0) known = undefined;
+    else known.sort();
+  }
+  const sweeps = tridiagonalQL(d, e, size, rows, known);
   if (sweeps < 0) {
     throw new EigenConvergenceError(
       `symmetricEigen: eigenvalue ${-1 - sweeps} of ${size} did not converge within ${QL_SWEEPS_PER_EIGENVALUE} QL sweeps`,

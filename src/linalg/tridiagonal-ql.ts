@@ -8,7 +8,13 @@
  * unreduced block l … m (off-diagonals e[l … m−1] non-negligible). The shift
  * is the eigenvalue of the leading 2×2 block nearer to d[l] (Wilkinson's
  * choice); the bulge it makes is chased from the bottom of the block to its
- * top with plane rotations. An off-diagonal counts as negligible when
+ * top with plane rotations. When the eigenvalues are known already (a
+ * first pass without vectors costs O(n²)), the first sweep of each block
+ * uses the known eigenvalue nearest to Wilkinson's shift instead, which
+ * usually splits off an eigenvalue in one sweep and so halves the work on
+ * the vectors; any shift keeps every step an exact orthogonal similarity,
+ * so this changes only the number of sweeps, never the accuracy. An
+ * off-diagonal counts as negligible when
  * |e[i]| ≤ ε (|d[i]| + |d[i+1]|) with ε the double-precision unit roundoff.
  * @module
  */
@@ -29,13 +35,17 @@ export const QL_SWEEPS_PER_EIGENVALUE = 60;
  * starting from Qᵀ of A = Q T Qᵀ, row i ends as the eigenvector of A for
  * `d[i]`; starting from the identity, as that of T.
  *
+ * `knownValues`, when given, holds the eigenvalues of this matrix sorted
+ * ascending (from an earlier call without `rows`); they serve as shifts.
+ *
  * @returns the number of sweeps, or −1 − i when eigenvalue i did not
  *   converge within {@link QL_SWEEPS_PER_EIGENVALUE} sweeps (the caller
  *   reports it). Never allocates, never throws.
  */
-export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?: Float64Array): number {
+export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?: Float64Array, knownValues?: Float64Array): number {
   let sweeps = 0;
   if (n > 0) e[n - 1] = 0;
+  const used = knownValues === undefined ? undefined : new Uint8Array(knownValues.length);
   for (let l = 0; l < n; l++) {
     let iterations = 0;
     for (;;) {
@@ -45,13 +55,17 @@ export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?
         const scale = Math.abs(d[m]) + Math.abs(d[m + 1]);
         if (Math.abs(e[m]) <= EPSILON * scale) break;
       }
-      if (m === l) break;
+      if (m === l) {
+        if (used !== undefined) take(knownValues as Float64Array, used, d[l]);
+        break;
+      }
       if (iterations++ === QL_SWEEPS_PER_EIGENVALUE) return -1 - l;
       sweeps++;
       // Wilkinson shift from the leading 2×2 block [d_l e_l; e_l d_{l+1}].
       let g = (d[l + 1] - d[l]) / (2 * e[l]);
-      let r = Math.hypot(g, 1);
-      const shift = d[l] - e[l] / (g + (g >= 0 ? r : -r));
+      let r = hypot(g, 1);
+      let shift = d[l] - e[l] / (g + (g >= 0 ? r : -r));
+      if (used !== undefined && iterations <= 2) shift = nearestUnused(knownValues as Float64Array, used, shift, false);
       // Chase the bulge from m − 1 up to l.
       let s = 1;
       let c = 1;
@@ -62,7 +76,7 @@ export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?
       for (; i >= l; i--) {
         const f = s * e[i];
         const b = c * e[i];
-        r = Math.hypot(f, g);
+        r = hypot(f, g);
         e[i + 1] = r;
         if (r === 0) {
           // The rotation vanished: the block splits here; undo the last update and restart.
@@ -87,6 +101,39 @@ export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?
     }
   }
   return sweeps;
+}
+
+/** √(a² + b²), without Math.hypot's cost where no overflow or underflow can occur. */
+function hypot(a: number, b: number): number {
+  const m = Math.max(Math.abs(a), Math.abs(b));
+  return m < 1e150 && m > 1e-150 ? Math.sqrt(a * a + b * b) : Math.hypot(a, b);
+}
+
+/**
+ * The entry of the ascending `values` nearest to `x` among those not yet
+ * `used` (or `x` itself when all are); with `mark`, marks it used.
+ */
+function nearestUnused(values: Float64Array, used: Uint8Array, x: number, mark: boolean): number {
+  let lo = 0;
+  let hi = values.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (values[mid] < x) lo = mid;
+    else hi = mid;
+  }
+  while (lo >= 0 && used[lo]) lo--;
+  while (hi < values.length && used[hi]) hi++;
+  let best = -1;
+  if (lo >= 0) best = lo;
+  if (hi < values.length && (best < 0 || Math.abs(values[hi] - x) < Math.abs(values[best] - x))) best = hi;
+  if (best < 0) return x;
+  if (mark) used[best] = 1;
+  return values[best];
+}
+
+/** Mark the known eigenvalue nearest to the converged `value` as used. */
+function take(values: Float64Array, used: Uint8Array, value: number): void {
+  nearestUnused(values, used, value, true);
 }
 
 /** The QL step's rotation of rows i and i+1: row_i ← c·row_i − s·row_{i+1}, row_{i+1} ← s·row_i + c·row_{i+1}. */
