@@ -131,6 +131,22 @@ describe('normalModes: how many rigid motions are removed', () => {
     expect(b.modes.frequencies.length).toBe(3);
   });
 
+  it('a free internal rotation (a chain without a torsion term) stays a vibration of ~0 cm⁻¹, orthogonal to the rigid motions', () => {
+    const file = torsionBarrierTop();
+    file.terms = file.terms.filter((t) => t.kind !== 'periodic-dihedral');
+    const model = parseModel(file);
+    const a = vibrationalAnalysis(model);
+    expect(a.modes.zeroModes).toBe(6);
+    expect(a.modes.frequencies.length).toBe(6);
+    const free = Array.from(a.modes.frequencies).filter((f) => Math.abs(f) < 1);
+    expect(free.length).toBe(1);
+    const i = Array.from(a.modes.frequencies).findIndex((f) => Math.abs(f) < 1);
+    const rigid = rigidMotions(model.coordinates, model.masses);
+    for (let r = 0; r < rigid.count; r++) {
+      expect(Math.abs(dot(a.modes.massWeightedModes[i], rigid.vectors.subarray(r * 12, (r + 1) * 12)))).toBeLessThan(1e-12);
+    }
+  });
+
   it('one atom: 3 zero modes and no vibrations', () => {
     const m = parseModel(modelFile([{ element: 'Ar' }], Float64Array.of(1, 2, 3), []));
     const a = vibrationalAnalysis(m);
