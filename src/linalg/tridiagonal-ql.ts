@@ -73,6 +73,10 @@ export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?
       g = d[m] - shift;
       let i = m - 1;
       let underflow = false;
+      // Rotations go to the rows in pairs, (i+1, i+2) then (i, i+1) in one pass over three rows.
+      let pending = -1;
+      let pc = 1;
+      let ps = 0;
       for (; i >= l; i--) {
         const f = s * e[i];
         const b = c * e[i];
@@ -92,8 +96,18 @@ export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?
         p = s * r;
         d[i + 1] = g + p;
         g = c * r - b;
-        if (rows !== undefined) rotateRows(rows, n, i, c, s);
+        if (rows !== undefined) {
+          if (pending === i + 1) {
+            rotateRowPairs(rows, n, i, pc, ps, c, s);
+            pending = -1;
+          } else {
+            pending = i;
+            pc = c;
+            ps = s;
+          }
+        }
       }
+      if (rows !== undefined && pending >= 0) rotateRows(rows, n, pending, pc, ps);
       if (underflow) continue;
       d[l] -= p;
       e[l] = g;
@@ -101,6 +115,22 @@ export function tridiagonalQL(d: Float64Array, e: Float64Array, n: number, rows?
     }
   }
   return sweeps;
+}
+
+/** The rotation (c1, s1) of rows i+1, i+2 and then (c2, s2) of rows i, i+1, in one pass. */
+function rotateRowPairs(rows: Float64Array, n: number, i: number, c1: number, s1: number, c2: number, s2: number): void {
+  const a = i * n;
+  const b = a + n;
+  const e = b + n;
+  for (let k = 0; k < n; k++) {
+    const x0 = rows[a + k];
+    const x1 = rows[b + k];
+    const x2 = rows[e + k];
+    const t1 = c1 * x1 - s1 * x2;
+    rows[e + k] = s1 * x1 + c1 * x2;
+    rows[b + k] = s2 * x0 + c2 * t1;
+    rows[a + k] = c2 * x0 - s2 * t1;
+  }
 }
 
 /** √(a² + b²), without Math.hypot's cost where no overflow or underflow can occur. */
