@@ -98,3 +98,23 @@ export {
   TRIPLE_BOND_RATIO,
 } from './perceive/index.js';
 export type { BondPerceptionOptions, TopologyInput, Topology, Hybridization } from './perceive/index.js';
+
+export { symmetricEigen, EigenConvergenceError } from './linalg/symmetric-eigen.js';
+export type { SymmetricEigen, SymmetricEigenOptions } from './linalg/symmetric-eigen.js';
+export { tridiagonalize, reflectorsTransposed } from './linalg/tridiagonal.js';
+export { tridiagonalQL, QL_SWEEPS_PER_EIGENVALUE } from './linalg/tridiagonal-ql.js';
+export { restrictToComplement } from './linalg/complement.js';
+export type { ComplementRestriction } from './linalg/complement.js';
+export { massWeightHessian } from './vibrations/mass-weight.js';
+export { rigidMotions, LINEAR_MOMENT_RATIO } from './vibrations/rigid-motions.js';
+export type { RigidMotions } from './vibrations/rigid-motions.js';
+export { normalModes } from './vibrations/normal-modes.js';
+export type { NormalModes, NormalModeOptions } from './vibrations/normal-modes.js';
+export { harmonicThermo, STANDARD_TEMPERATURE } from './vibrations/thermo.js';
+export type { HarmonicThermo } from './vibrations/thermo.js';
+export { checkStationary } from './vibrations/stationary.js';
+export type { StationaryCheck } from './vibrations/stationary.js';
+export { vibrationalAnalysis } from './vibrations/model-modes.js';
+export type { VibrationalAnalysis, VibrationalAnalysisOptions } from './vibrations/model-modes.js';
+export { modeAnimation } from './vibrations/animate.js';
+export type { ModeAnimationOptions } from './vibrations/animate.js';

@@ -5,7 +5,8 @@
  * `kJ/mol`); kernels are unit-free and compute in whatever units their
  * parameters are in. Conversion happens only at the edges.
  *
- * Constants: CODATA 2018 exact values for c and N_A; the thermochemical
+ * Constants: CODATA 2018 exact values for c, h, k_B and N_A, the CODATA
+ * 2018 recommended value of the atomic mass constant; the thermochemical
  * calorie 1 kcal = 4.184 kJ; the Coulomb constant of the model-file spec.
  * @module
  */
@@ -34,6 +35,16 @@ export const AVOGADRO = 6.022_140_76e23;
 export const KJ_PER_KCAL = 4.184;
 /** Ångström in one nanometre (exact). */
 export const ANGSTROM_PER_NANOMETER = 10;
+/** Planck constant, J s (CODATA 2018, exact). */
+export const PLANCK = 6.626_070_15e-34;
+/** Boltzmann constant, J/K (CODATA 2018, exact). */
+export const BOLTZMANN = 1.380_649e-23;
+/**
+ * Atomic mass constant (one dalton), kg (CODATA 2018 recommended value
+ * 1.660 539 066 60(50) × 10⁻²⁷, from memory). It differs from
+ * 10⁻³ kg/mol / N_A by 3 parts in 10¹⁰.
+ */
+export const DALTON = 1.660_539_066_6e-27;
 
 /** How many ångström one unit of `unit` is. */
 export function angstromPer(unit: LengthUnit): number {
@@ -85,4 +96,22 @@ export const COULOMB_KJ_NM = 138.935458;
  */
 export function coulombConstant(units: Units): number {
   return COULOMB_KJ_NM * unitFactor({ length: 'nanometer', energy: 'kJ/mol' }, units, 1, 1);
+}
+
+/** How many J/mol one unit of `unit` is (4184 for kcal/mol, 1000 for kJ/mol). */
+export function joulePerMolPer(unit: EnergyUnit): number {
+  return 1000 * kjPerMolPer(unit);
+}
+
+/**
+ * Wavenumber (cm⁻¹) of a harmonic curvature, per square root of it: for an
+ * eigenvalue λ of a mass-weighted Hessian in `units` energy/length² per
+ * dalton, ν̃ = √λ · `wavenumberPerRootCurvature(units)`, from
+ * ν̃ = ω / (2π c), ω = √(λ_SI), λ_SI = λ · (J/mol per energy unit) / N_A /
+ * (m per length unit)² / (kg per dalton). About 108.59 for kcal/mol and Å.
+ */
+export function wavenumberPerRootCurvature(units: Units): number {
+  const metre = angstromPer(units.length) * 1e-10;
+  const toSI = joulePerMolPer(units.energy) / AVOGADRO / (metre * metre) / DALTON; // s⁻²
+  return Math.sqrt(toSI) / (2 * Math.PI * SPEED_OF_LIGHT * 100);
 }

@@ -9,6 +9,7 @@ import { checkGradientCommand, energyCommand, type CommandOutput } from './comma
 import { InputError, UsageError } from './errors.js';
 import { loadModel } from './io.js';
 import { METHODS, minimizeCommand, writerFor } from './minimize.js';
+import { animationChoice, modesCommand } from './modes.js';
 
 const VERSION = '0.1.0';
 
@@ -20,12 +21,15 @@ usage:
   strainwise minimize FILE -o OUT [--method lbfgs|cg|sd|fire] [--max-force X]
              [--max-iterations N] [--trajectory T.xyz --every K] [--json]
                                            relax the structure; OUT is .json (model) or .xyz
+  strainwise modes FILE [--temperature T] [--max-force X] [--animate K|all -o OUT.xyz] [--json]
+                                           normal modes, wavenumbers (cm⁻¹), harmonic thermochemistry
   strainwise --help | --version
 
 FILE is a model file (format "strainwise-model", version 1; see docs/model-file.md).
 --json prints one JSON document on stdout; messages go to stderr.
 exit status: 0 success, 1 ran but failed (a wrong gradient, no convergence), 2 bad input or usage.
---max-force is in the model's units (default 0.01 kcal/mol/Å, converted).
+--max-force is in the model's units (default 0.01 kcal/mol/Å, converted); for modes it is the
+stationary-point threshold (a warning on stderr above it). --temperature is in K (default 298.15).
 `;
 
 type Command = (args: readonly string[]) => CommandOutput;
@@ -91,10 +95,34 @@ const minimize: Command = (args) => {
   );
 };
 
+const modes: Command = (args) => {
+  const { values, positionals } = parse(args, {
+    json: { type: 'boolean' },
+    temperature: { type: 'string' },
+    'max-force': { type: 'string' },
+    animate: { type: 'string' },
+    output: { type: 'string', short: 'o' },
+  });
+  if (positionals.length !== 1) {
+    throw new UsageError(`modes needs exactly one FILE, got ${positionals.length === 0 ? 'none' : positionals.length}`);
+  }
+  const output = values.output as string | undefined;
+  const animate = animationChoice(values.animate as string | undefined, output);
+  const temperature = numberOption('--temperature', values.temperature as string | undefined, 'positive');
+  const maxForce = numberOption('--max-force', values['max-force'] as string | undefined, 'positive');
+  const model = loadModel(positionals[0]);
+  return modesCommand(
+    model,
+    { file: positionals[0], json: values.json === true, temperature, maxForce, animate, output },
+    (line) => process.stderr.write(line + '\n'),
+  );
+};
+
 const COMMANDS: Record<string, Command> = {
   energy: modelCommand('energy', energyCommand),
   'check-gradient': modelCommand('check-gradient', checkGradientCommand),
   minimize,
+  modes,
 };
 
 function parse<const O extends NonNullable<ParseArgsConfig['options']>>(args: readonly string[], options: O) {
