@@ -59,3 +59,5 @@ export { relaxModel } from './model/relax.js';
 export type { RelaxOptions, RelaxResult } from './model/relax.js';
 export { writeFileWhole } from './io/write-file.js';
 export { xyzFrame } from './io/xyz.js';
+
+export * from './hessian/index.js';
