@@ -39,12 +39,13 @@
  * @module
  */
 import type { TermTable } from '../terms/table.js';
-import { emitLocal, expandToAtoms, symmetrize } from './local.js';
+import { emitLocal, expandToAtoms, spreadOf, symmetrize } from './local.js';
 import type { HessianKernel, HessianSink } from './sink.js';
 
 const SLOTS: readonly number[] = [0, 1, 2];
 /** x_i ↦ u, x_j ↦ −u − v, x_k ↦ v (rows: atoms i, j, k; columns: u, v). */
 const COEFFICIENTS: readonly number[] = [1, 0, -1, -1, 0, 1];
+const SPREAD = spreadOf(COEFFICIENTS, 3, 2);
 
 /** Hessian over (u, v), 6×6 row-major. */
 const inner = new Float64Array(36);
@@ -55,29 +56,36 @@ const V_HAT = new Float64Array(3);
 const P_U = new Float64Array(3);
 const P_V = new Float64Array(3);
 const N_HAT = new Float64Array(3);
-
-/** inner[(3s+p)·6 + 3t+q] = value, s, t ∈ {0 (u), 1 (v)}. */
-function put(s: number, t: number, p: number, q: number, value: number): void {
-  inner[(3 * s + p) * 6 + 3 * t + q] = value;
-}
+/** Inputs of {@link thetaInner}: u, v, c (3 each), |c|, u · v, E', E''. */
+const ARGS = new Float64Array(13);
 
 /** Spreads {@link inner} over the three atoms and hands it to the sink. */
 function emit(sink: HessianSink, atoms: Int32Array, base: number): void {
-  expandToAtoms(inner, 2, COEFFICIENTS, 3, local);
+  expandToAtoms(inner, SPREAD, local);
   symmetrize(local, 9);
   emitLocal(sink, local, atoms, base, SLOTS);
 }
 
 /**
- * Fills {@link inner} with the Hessian over (u, v) of an energy of θ, given
- * E'(θ) = `d1` and E''(θ) = `d2` (see the module comment for every case).
+ * Fills {@link inner} with the Hessian over (u, v) of an energy of θ, from
+ * u, v, c = u × v, |c|, u · v, E'(θ), E''(θ) in {@link ARGS} (passed through
+ * an array so that no floating-point argument is boxed; see the module
+ * comment for every case).
  */
-function thetaInner(
-  ux: number, uy: number, uz: number,
-  vx: number, vy: number, vz: number,
-  cx: number, cy: number, cz: number,
-  cn: number, dot: number, d1: number, d2: number,
-): void {
+function thetaInner(): void {
+  const ux = ARGS[0];
+  const uy = ARGS[1];
+  const uz = ARGS[2];
+  const vx = ARGS[3];
+  const vy = ARGS[4];
+  const vz = ARGS[5];
+  const cx = ARGS[6];
+  const cy = ARGS[7];
+  const cz = ARGS[8];
+  const cn = ARGS[9];
+  const dot = ARGS[10];
+  const d1 = ARGS[11];
+  const d2 = ARGS[12];
   const U2 = ux * ux + uy * uy + uz * uz;
   const V2 = vx * vx + vy * vy + vz * vz;
   const U = Math.sqrt(U2);
@@ -101,10 +109,10 @@ function thetaInner(
     for (let p = 0; p < 3; p++) {
       for (let q = 0; q < 3; q++) {
         const proj = (p === q ? 1 : 0) - U_HAT[p] * U_HAT[q];
-        put(0, 0, p, q, uu * proj);
-        put(1, 1, p, q, vv * proj);
-        put(0, 1, p, q, uv * proj);
-        put(1, 0, p, q, uv * proj);
+        inner[p * 6 + q] = uu * proj;
+        inner[(3 + p) * 6 + 3 + q] = vv * proj;
+        inner[p * 6 + 3 + q] = uv * proj;
+        inner[(3 + p) * 6 + q] = uv * proj;
       }
     }
     return;
@@ -129,11 +137,11 @@ function thetaInner(
   for (let p = 0; p < 3; p++) {
     for (let q = 0; q < 3; q++) {
       const nn = N_HAT[p] * N_HAT[q];
-      put(0, 0, p, q, uu2 * P_U[p] * P_U[q] + uu1 * (cot * nn - P_U[p] * U_HAT[q] - U_HAT[p] * P_U[q]));
-      put(1, 1, p, q, vv2 * P_V[p] * P_V[q] + vv1 * (cot * nn - P_V[p] * V_HAT[q] - V_HAT[p] * P_V[q]));
+      inner[p * 6 + q] = uu2 * P_U[p] * P_U[q] + uu1 * (cot * nn - P_U[p] * U_HAT[q] - U_HAT[p] * P_U[q]);
+      inner[(3 + p) * 6 + 3 + q] = vv2 * P_V[p] * P_V[q] + vv1 * (cot * nn - P_V[p] * V_HAT[q] - V_HAT[p] * P_V[q]);
       const cross = uv2 * P_U[p] * P_V[q] + uvOut * (p === 0 ? cx : p === 1 ? cy : cz) * (q === 0 ? cx : q === 1 ? cy : cz);
-      put(0, 1, p, q, cross);
-      put(1, 0, q, p, cross);
+      inner[p * 6 + 3 + q] = cross;
+      inner[(3 + q) * 6 + p] = cross;
     }
   }
 }
@@ -165,7 +173,20 @@ export const harmonicAngleHessian: HessianKernel = {
       const cn = Math.sqrt(cx * cx + cy * cy + cz * cz);
       const dot = ux * vx + uy * vy + uz * vz;
       const theta = Math.atan2(cn, dot);
-      thetaInner(ux, uy, uz, vx, vy, vz, cx, cy, cz, cn, dot, kf * (theta - theta0), kf);
+      ARGS[0] = ux;
+      ARGS[1] = uy;
+      ARGS[2] = uz;
+      ARGS[3] = vx;
+      ARGS[4] = vy;
+      ARGS[5] = vz;
+      ARGS[6] = cx;
+      ARGS[7] = cy;
+      ARGS[8] = cz;
+      ARGS[9] = cn;
+      ARGS[10] = dot;
+      ARGS[11] = kf * (theta - theta0);
+      ARGS[12] = kf;
+      thetaInner();
       emit(sink, atoms, 3 * t);
     }
   },
@@ -234,10 +255,10 @@ export const cosineAngleHessian: HessianKernel = {
           const huu = -(up * vq + vp * uq) * uu3 + cu4 * up * uq - (c * id) / U2;
           const hvv = -(vp * uq + up * vq) * vv3 + cv4 * vp * vq - (c * id) / V2;
           const huv = id * a - vp * vq * vv3 - up * uq * uu3 + cuv * up * vq;
-          put(0, 0, p, q, kf * gup * guq + f * huu);
-          put(1, 1, p, q, kf * gvp * gvq + f * hvv);
-          put(0, 1, p, q, kf * gup * gvq + f * huv);
-          put(1, 0, q, p, kf * gup * gvq + f * huv);
+          inner[p * 6 + q] = kf * gup * guq + f * huu;
+          inner[(3 + p) * 6 + 3 + q] = kf * gvp * gvq + f * hvv;
+          inner[p * 6 + 3 + q] = kf * gup * gvq + f * huv;
+          inner[(3 + q) * 6 + p] = kf * gup * gvq + f * huv;
         }
       }
       emit(sink, atoms, 3 * t);

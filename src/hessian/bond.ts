@@ -20,69 +20,86 @@ import type { HessianKernel, HessianSink } from './sink.js';
 /** [K, −K], each 3×3 row-major: the scratch of every pair kernel. */
 const pairScratch = new Float64Array(18);
 
-/**
- * Writes K = f I + (e2 − f) d dᵀ / r² and −K into {@link pairScratch}, and
- * hands the four blocks of the pair (i, j) to the sink in slot order
- * (i,i), (i,j), (j,i), (j,j). `e2` is E''(r) and `f` is E'(r)/r; r² is
- * passed as `r2` (> 0 unless both terms vanish, see callers).
- */
-export function emitPair(
-  sink: HessianSink,
-  a: number,
-  b: number,
-  e2: number,
-  f: number,
-  dx: number,
-  dy: number,
-  dz: number,
-  r2: number,
-): void {
-  const h = pairScratch;
-  const w = r2 > 0 ? (e2 - f) / r2 : 0;
-  const xx = f + w * dx * dx;
-  const yy = f + w * dy * dy;
-  const zz = f + w * dz * dz;
-  const xy = w * dx * dy;
-  const xz = w * dx * dz;
-  const yz = w * dy * dz;
-  h[0] = xx;
-  h[1] = xy;
-  h[2] = xz;
-  h[3] = xy;
-  h[4] = yy;
-  h[5] = yz;
-  h[6] = xz;
-  h[7] = yz;
-  h[8] = zz;
-  for (let n = 0; n < 9; n++) h[9 + n] = -h[n];
-  sink.add(a, a, h, 0, 3);
-  sink.add(a, b, h, 9, 3);
-  sink.add(b, a, h, 9, 3);
-  sink.add(b, b, h, 0, 3);
-}
+/** Which energy of r a pair loop evaluates (plain numbers: shared with restraint.ts). */
+export const PAIR_HARMONIC = 0;
+export const PAIR_MORSE = 1;
+export const PAIR_DISTANCE_RESTRAINT = 2;
 
-/** Harmonic stretch ½ k (r − r0)² between columns `ci` and `cj`. */
-function harmonicStretch(x: Float64Array, table: TermTable, sink: HessianSink, ci: number, cj: number): void {
-  const { atoms, params, count, arity } = table;
+/**
+ * The Hessian blocks of every term of `table` whose energy is a function of
+ * r = |x_cj − x_ci| (columns ci, cj of the term's atoms): K = (E'/r) I +
+ * (E'' − E'/r) d dᵀ / r² and −K, handed to the sink in slot order
+ * (i,i), (i,j), (j,i), (j,j). One loop for every pair kind, so that no
+ * floating-point number crosses a function call (V8 would box it).
+ */
+export function pairHessians(
+  x: Float64Array,
+  table: TermTable,
+  sink: HessianSink,
+  ci: number,
+  cj: number,
+  form: number,
+): void {
+  const { atoms, params, count, arity, width } = table;
+  const h = pairScratch;
   for (let t = 0; t < count; t++) {
     const ai = atoms[t * arity + ci];
     const aj = atoms[t * arity + cj];
     const i = 3 * ai;
     const j = 3 * aj;
-    const k = params[2 * t];
-    const r0 = params[2 * t + 1];
+    const p = t * width;
     const dx = x[j] - x[i];
     const dy = x[j + 1] - x[i + 1];
     const dz = x[j + 2] - x[i + 2];
     const r2 = dx * dx + dy * dy + dz * dz;
     const r = Math.sqrt(r2);
-    let e2 = k;
-    let f = k; // r0 = 0: K = k I exactly, at r = 0 too
-    if (r0 !== 0) {
-      if (r > 0) f = (k * (r - r0)) / r;
-      else e2 = f = 0;
+    let e2 = 0; // E''(r)
+    let f = 0; // E'(r) / r
+    if (form === PAIR_HARMONIC) {
+      const k = params[p];
+      const r0 = params[p + 1];
+      if (r0 === 0) {
+        e2 = k; // ½ k r²: K = k I exactly, at r = 0 too
+        f = k;
+      } else if (r > 0) {
+        e2 = k;
+        f = (k * (r - r0)) / r;
+      }
+    } else if (form === PAIR_MORSE) {
+      const D = params[p];
+      const a = params[p + 1];
+      const ex = Math.exp(-a * (r - params[p + 2]));
+      if (r > 0) {
+        e2 = 2 * D * a * a * ex * (2 * ex - 1);
+        f = (2 * D * a * ex * (1 - ex)) / r;
+      }
+    } else {
+      const k = params[p];
+      const lower = params[p + 1];
+      const upper = params[p + 2];
+      if ((r < lower || r > upper || lower === upper) && r > 0) {
+        e2 = k;
+        f = (k * (r - (r < lower ? lower : upper))) / r;
+      }
     }
-    emitPair(sink, ai, aj, e2, f, dx, dy, dz, r2);
+    const w = r2 > 0 ? (e2 - f) / r2 : 0;
+    const xy = w * dx * dy;
+    const xz = w * dx * dz;
+    const yz = w * dy * dz;
+    h[0] = f + w * dx * dx;
+    h[1] = xy;
+    h[2] = xz;
+    h[3] = xy;
+    h[4] = f + w * dy * dy;
+    h[5] = yz;
+    h[6] = xz;
+    h[7] = yz;
+    h[8] = f + w * dz * dz;
+    for (let n = 0; n < 9; n++) h[9 + n] = -h[n];
+    sink.add(ai, ai, h, 0, 3);
+    sink.add(ai, aj, h, 9, 3);
+    sink.add(aj, ai, h, 9, 3);
+    sink.add(aj, aj, h, 0, 3);
   }
 }
 
@@ -92,7 +109,7 @@ function harmonicStretch(x: Float64Array, table: TermTable, sink: HessianSink, c
  */
 export const harmonicBondHessian: HessianKernel = {
   slots: [0, 1],
-  accumulate: (x, table, sink) => harmonicStretch(x, table, sink, 0, 1),
+  accumulate: (x, table, sink) => pairHessians(x, table, sink, 0, 1, PAIR_HARMONIC),
 };
 
 /**
@@ -101,7 +118,7 @@ export const harmonicBondHessian: HessianKernel = {
  */
 export const ureyBradleyHessian: HessianKernel = {
   slots: [0, 2],
-  accumulate: (x, table, sink) => harmonicStretch(x, table, sink, 0, 2),
+  accumulate: (x, table, sink) => pairHessians(x, table, sink, 0, 2, PAIR_HARMONIC),
 };
 
 /**
@@ -111,29 +128,5 @@ export const ureyBradleyHessian: HessianKernel = {
  */
 export const morseBondHessian: HessianKernel = {
   slots: [0, 1],
-  accumulate(x, table, sink) {
-    const { atoms, params, count } = table;
-    for (let t = 0; t < count; t++) {
-      const ai = atoms[2 * t];
-      const aj = atoms[2 * t + 1];
-      const i = 3 * ai;
-      const j = 3 * aj;
-      const D = params[3 * t];
-      const a = params[3 * t + 1];
-      const r0 = params[3 * t + 2];
-      const dx = x[j] - x[i];
-      const dy = x[j + 1] - x[i + 1];
-      const dz = x[j + 2] - x[i + 2];
-      const r2 = dx * dx + dy * dy + dz * dz;
-      const r = Math.sqrt(r2);
-      const ex = Math.exp(-a * (r - r0));
-      let e2 = 0;
-      let f = 0;
-      if (r > 0) {
-        e2 = 2 * D * a * a * ex * (2 * ex - 1);
-        f = (2 * D * a * ex * (1 - ex)) / r;
-      }
-      emitPair(sink, ai, aj, e2, f, dx, dy, dz, r2);
-    }
-  },
+  accumulate: (x, table, sink) => pairHessians(x, table, sink, 0, 1, PAIR_MORSE),
 };

@@ -11,7 +11,7 @@
  * case the energy is a smooth ½ k (r − bound)² and its Hessian is returned.
  * @module
  */
-import { emitPair } from './bond.js';
+import { PAIR_DISTANCE_RESTRAINT, pairHessians } from './bond.js';
 import type { HessianKernel } from './sink.js';
 
 /** One 3×3 block, row-major. */
@@ -73,30 +73,5 @@ export const positionRestraintHessian: HessianKernel = {
  */
 export const distanceRestraintHessian: HessianKernel = {
   slots: [0, 1],
-  accumulate(x, table, sink) {
-    const { atoms, params, count } = table;
-    for (let t = 0; t < count; t++) {
-      const ai = atoms[2 * t];
-      const aj = atoms[2 * t + 1];
-      const i = 3 * ai;
-      const j = 3 * aj;
-      const p = 3 * t;
-      const k = params[p];
-      const lower = params[p + 1];
-      const upper = params[p + 2];
-      const dx = x[j] - x[i];
-      const dy = x[j + 1] - x[i + 1];
-      const dz = x[j + 2] - x[i + 2];
-      const r2 = dx * dx + dy * dy + dz * dz;
-      const r = Math.sqrt(r2);
-      const outside = r < lower || r > upper || lower === upper;
-      let e2 = 0;
-      let f = 0;
-      if (outside && r > 0) {
-        e2 = k;
-        f = (k * (r - (r < lower ? lower : upper))) / r;
-      }
-      emitPair(sink, ai, aj, e2, f, dx, dy, dz, r2);
-    }
-  },
+  accumulate: (x, table, sink) => pairHessians(x, table, sink, 0, 1, PAIR_DISTANCE_RESTRAINT),
 };

@@ -43,7 +43,7 @@
  */
 import type { TermTable } from '../terms/table.js';
 import { wrapAngle } from '../terms/torsion.js';
-import { emitLocal, expandToAtoms, symmetrize } from './local.js';
+import { emitLocal, expandToAtoms, spreadOf, symmetrize } from './local.js';
 import type { HessianKernel, HessianSink } from './sink.js';
 
 /** Squared sine below which a bond angle counts as collinear (as in the gradient kernel). */
@@ -51,6 +51,7 @@ const COLLINEAR_SIN2 = 1e-30;
 const SLOTS: readonly number[] = [0, 1, 2, 3];
 /** Rows atoms i, j, k, l; columns b1, b2, b3. */
 const COEFFICIENTS: readonly number[] = [-1, 0, 0, 1, -1, 0, 0, 1, -1, 0, 0, 1];
+const SPREAD = spreadOf(COEFFICIENTS, 4, 3);
 
 const enum Form {
   Periodic,
@@ -237,7 +238,7 @@ function torsionHessians(x: Float64Array, table: TermTable, sink: HessianSink, f
         inner[(3 + c) * 9 + 6 + r] = d2 * g[6 + r] * g[3 + c] + d1 * h32;
       }
     }
-    expandToAtoms(inner, 3, COEFFICIENTS, 4, local);
+    expandToAtoms(inner, SPREAD, local);
     symmetrize(local, 12);
     emitLocal(sink, local, atoms, 4 * t, SLOTS);
   }
