@@ -21,8 +21,8 @@
  * **Near and at 0° and 180°.** The out-of-plane terms grow like 1/sin θ: the
  * energy ½ k (θ − θ0)² with θ0 ≠ 180° really has a cusp at the line (θ is
  * |angle|-like there), and its Hessian diverges like k (π − θ0)/sin θ as the
- * line is approached; it is returned as computed, which stays accurate down
- * to a bend of ~1e-8 rad (|c| carries a relative error ~1e-16/sin θ). At
+ * line is approached; it is returned as computed (|c| carries a relative
+ * rounding error ~ε/sin θ, so about 16 + log10 sin θ digits are kept). At
  * EXACTLY 0° or 180° (|c| = 0) n̂ is undefined; the kernel returns the finite
  * limit of the E'' part, E''(θ) P ⊗ [[1/U², σ/(UV)], [σ/(UV), 1/V²]] with
  * P = I − ûûᵀ and σ = +1 at 180°, −1 at 0°, and drops E'·∇²θ. This is the
