@@ -54,6 +54,14 @@ function median(f, repeats) {
 
 const ms = (v) => v.toFixed(v < 1 ? 3 : 1).padStart(9);
 
+// warm the kernels up (JIT) before anything is timed
+{
+  const x = chain(100);
+  const tables = molecule(100);
+  const out = new Float64Array(9 * 100 * 100);
+  for (let i = 0; i < 200; i++) tablesHessian(tables, 100, x, out);
+}
+
 console.log('dense assembly (bonds + angles + torsions of a chain, ~3 terms per atom)');
 console.log('   atoms    terms  matrix MB   assemble ms   of which clearing ms');
 for (const atoms of [30, 100, 300, 1000]) {

@@ -55,9 +55,13 @@ export interface Spread {
   readonly m: number;
   /** Difference vectors per term. */
   readonly nv: number;
+  /** First difference vector each atom enters. */
   readonly s0: Int32Array;
+  /** Its coefficient (−1 or 1). */
   readonly c0: Float64Array;
+  /** Second difference vector each atom enters (0 when none). */
   readonly s1: Int32Array;
+  /** Its coefficient (−1, 1, or 0 when none). */
   readonly c1: Float64Array;
 }
 

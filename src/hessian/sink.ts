@@ -20,6 +20,7 @@ import type { TermTable } from '../terms/table.js';
  * the exact transpose of the first; a sink may keep both or only one.
  */
 export interface HessianSink {
+  /** Adds one 3×3 block; see above. */
   add(a: number, b: number, source: Float64Array, offset: number, stride: number): void;
 }
 
@@ -40,6 +41,7 @@ export class DenseSink implements HessianSink {
     this.size = 3 * atomCount;
   }
 
+  /** Adds the block (see {@link HessianSink}) at rows 3a…3a+2, columns 3b…3b+2. */
   add(a: number, b: number, source: Float64Array, offset: number, stride: number): void {
     const m = this.matrix;
     const n = this.size;
