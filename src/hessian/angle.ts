@@ -39,7 +39,7 @@
  * @module
  */
 import type { TermTable } from '../terms/table.js';
-import { emitLocal, expandToAtoms, spreadOf, symmetrize } from './local.js';
+import { emitLocal, expandToAtoms, spreadOf } from './local.js';
 import type { HessianKernel, HessianSink } from './sink.js';
 
 const SLOTS: readonly number[] = [0, 1, 2];
@@ -62,7 +62,6 @@ const ARGS = new Float64Array(13);
 /** Spreads {@link inner} over the three atoms and hands it to the sink. */
 function emit(sink: HessianSink, atoms: Int32Array, base: number): void {
   expandToAtoms(inner, SPREAD, local);
-  symmetrize(local, 9);
   emitLocal(sink, local, atoms, base, SLOTS);
 }
 

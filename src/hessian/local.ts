@@ -1,6 +1,6 @@
 /**
  * Small dense helpers shared by the Hessian kernels: a term's local Hessian
- * is built in a scratch array, made exactly symmetric, and handed to the sink
+ * is built in a scratch array, exactly symmetric, and handed to the sink
  * block by block.
  * @module
  */
@@ -25,21 +25,6 @@ export function emitLocal(
     const a = atoms[base + slots[s]];
     for (let t = 0; t < m; t++) {
       sink.add(a, atoms[base + slots[t]], local, 3 * s * stride + 3 * t, stride);
-    }
-  }
-}
-
-/**
- * Makes the `dim`×`dim` row-major `matrix` exactly symmetric in place: each
- * pair of mirrored entries is replaced by their mean (the same rounded
- * number on both sides, since addition commutes).
- */
-export function symmetrize(matrix: Float64Array, dim: number): void {
-  for (let r = 0; r < dim; r++) {
-    for (let c = r + 1; c < dim; c++) {
-      const mean = 0.5 * (matrix[r * dim + c] + matrix[c * dim + r]);
-      matrix[r * dim + c] = mean;
-      matrix[c * dim + r] = mean;
     }
   }
 }
@@ -100,7 +85,10 @@ const half = new Float64Array(9 * 12);
  * d_s = Σ_a C[a][s] x_a, the atom blocks are H_ab = Σ_s Σ_t C[a][s] C[b][t] D_st,
  * D the (3nv)×(3nv) row-major Hessian over the d's. Done as two passes,
  * T = D (C ⊗ I)ᵀ and then H = (C ⊗ I) T, each entry two multiply-adds
- * (see {@link Spread}). Writes `local` ((3m)×(3m), row-major), overwriting it.
+ * (see {@link Spread}). Writes `local` ((3m)×(3m), row-major), overwriting
+ * it. The result is exactly symmetric: each entry at or above the diagonal
+ * is computed once and copied to its mirror (D itself may be off symmetric
+ * by rounding; only its upper triangle of atom blocks is then used).
  */
 export function expandToAtoms(inner: Float64Array, spread: Spread, local: Float64Array): void {
   const { m, nv, s0, c0, s1, c1 } = spread;
@@ -119,14 +107,20 @@ export function expandToAtoms(inner: Float64Array, spread: Spread, local: Float6
       half[out + 2] = w0 * inner[u0 + 2] + w1 * inner[u1 + 2];
     }
   }
+  // H = (C ⊗ I) T for columns c ≥ 3a (blocks a ≤ b), each copied to its
+  // mirror; in a diagonal block the later write of a pair wins on both sides
   for (let a = 0; a < m; a++) {
     const w0 = c0[a];
     const w1 = c1[a];
     for (let p = 0; p < 3; p++) {
       const h0 = (3 * s0[a] + p) * dl;
       const h1 = (3 * s1[a] + p) * dl;
-      const out = (3 * a + p) * dl;
-      for (let c = 0; c < dl; c++) local[out + c] = w0 * half[h0 + c] + w1 * half[h1 + c];
+      const row = (3 * a + p) * dl;
+      for (let c = 3 * a; c < dl; c++) {
+        const value = w0 * half[h0 + c] + w1 * half[h1 + c];
+        local[row + c] = value;
+        local[c * dl + 3 * a + p] = value;
+      }
     }
   }
 }

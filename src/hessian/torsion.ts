@@ -43,7 +43,7 @@
  */
 import type { TermTable } from '../terms/table.js';
 import { wrapAngle } from '../terms/torsion.js';
-import { emitLocal, expandToAtoms, spreadOf, symmetrize } from './local.js';
+import { emitLocal, expandToAtoms, spreadOf } from './local.js';
 import type { HessianKernel, HessianSink } from './sink.js';
 
 /** Squared sine below which a bond angle counts as collinear (as in the gradient kernel). */
@@ -239,7 +239,6 @@ function torsionHessians(x: Float64Array, table: TermTable, sink: HessianSink, f
       }
     }
     expandToAtoms(inner, SPREAD, local);
-    symmetrize(local, 12);
     emitLocal(sink, local, atoms, 4 * t, SLOTS);
   }
 }
