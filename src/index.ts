@@ -118,3 +118,5 @@ export { vibrationalAnalysis } from './vibrations/model-modes.js';
 export type { VibrationalAnalysis, VibrationalAnalysisOptions } from './vibrations/model-modes.js';
 export { modeAnimation } from './vibrations/animate.js';
 export type { ModeAnimationOptions } from './vibrations/animate.js';
+
+export * from './hessian/index.js';
