@@ -402,7 +402,7 @@ function atomLine(r: PdbAtomRecord, name: string, element: string, charge: numbe
 function terLine(r: PdbAtomRecord): string {
   const serial = r.serial + 1 <= 99999 ? String(r.serial + 1).padStart(5) : '     ';
   const residueNumber = r.residueNumber === null ? '    ' : String(r.residueNumber).padStart(4);
-  return `TER   ${serial}      ${r.residueName.padStart(3)} ${r.chain.padEnd(1)}${residueNumber}${r.insertionCode.padEnd(1)}`;
+  return `TER   ${serial}      ${r.residueName.padStart(3)} ${r.chain.padEnd(1)}${residueNumber}${r.insertionCode}`.trimEnd();
 }
 
 /** TITLE lines for `title`: 70 characters per line in columns 11-80, continuation numbers in 9-10, broken so no line ends in a blank. */

@@ -74,6 +74,9 @@ function readRecord(lines: string[], start: number, recordNo: number): { structu
     }
     const line = lines[i];
     const lineNo = at(i);
+    if (/^(\s*\d+){3,7}\s*$/.test(line) && line.trimEnd().length <= 21) {
+      throw new StructureError(lineNo, '', `expected atom ${a + 1} of ${atomCount} (the counts line, line ${countsNo}, says ${atomCount} atoms), got what looks like a bond line: "${line.trim()}"`);
+    }
     x[3 * a] = fixedNumber(line, lineNo, 1, 10, 'x');
     x[3 * a + 1] = fixedNumber(line, lineNo, 11, 20, 'y');
     x[3 * a + 2] = fixedNumber(line, lineNo, 21, 30, 'z');
@@ -118,7 +121,7 @@ function readRecord(lines: string[], start: number, recordNo: number): { structu
     if (firstLine !== undefined) throw new StructureError(lineNo, '', `bond ${Math.min(from, to)}-${Math.max(from, to)} is given twice (first on line ${firstLine})`);
     bondLine.set(key, lineNo);
     pairs.push([from - 1, to - 1]);
-    bondData.push({ order, record: { from: from - 1, to: to - 1, stereo, trailing: line.slice(12, 21).trimEnd() } });
+    bondData.push({ order, record: { from: from - 1, to: to - 1, stereo, trailing: line.slice(12, 21).trimEnd(), fileIndex: b } });
   }
 
   const structuralText: string[] = [];
@@ -342,7 +345,10 @@ function recordText(s: Structure, coordinates?: Float64Array): string {
   }
   const bondRecords = new Map<number, SdfBondRecord>();
   if (r) for (const br of r.bonds) bondRecords.set(Math.min(br.from, br.to) * n + Math.max(br.from, br.to), br);
-  for (let k = 0; k < b; k++) {
+  // Bonds in the order the file had them (bonds without a record last, in structure order).
+  const recordOf = (k: number) => bondRecords.get(Math.min(bonds[2 * k], bonds[2 * k + 1]) * n + Math.max(bonds[2 * k], bonds[2 * k + 1]));
+  const writeOrder = Array.from({ length: b }, (_, k) => k).sort((p, q) => (recordOf(p)?.fileIndex ?? b + p) - (recordOf(q)?.fileIndex ?? b + q));
+  for (const k of writeOrder) {
     const i = bonds[2 * k];
     const j = bonds[2 * k + 1];
     const order = orders ? orders[k] : 1;

@@ -76,6 +76,8 @@ export interface SdfBondRecord {
   stereo: number;
   /** Columns 13-21 as read (unused field, bond topology, reacting centre), trailing blanks removed. */
   trailing: string;
+  /** Position of the bond in the file's bond block (0-based); the writer keeps that order. */
+  fileIndex: number;
 }
 
 /** One data item of an SDF record: a `>` header line and its value lines. */
@@ -199,11 +201,11 @@ export class StructureError extends Error {
 const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const INTEGER = /^[+-]?\d+$/;
 
-/** `text` as a finite decimal number (`1`, `-2.5`, `.5`, `1e-3`), or `undefined`. Never throws. */
+/** `text` as a finite decimal number (`1`, `-2.5`, `.5`, `1e-3`, `-0` stays −0), or `undefined`. Never throws. */
 export function parseDecimal(text: string): number | undefined {
   if (!DECIMAL.test(text)) return undefined;
   const v = Number(text);
-  return Number.isFinite(v) ? v + 0 : undefined; // + 0 turns −0 into 0
+  return Number.isFinite(v) ? v : undefined;
 }
 
 /** Split text into lines (LF, CRLF or CR); a final line break does not start another line. */
@@ -226,7 +228,7 @@ export function fixedNumber(line: string, lineNo: number, first: number, last: n
   const text = columns(line, first, last).trim();
   const v = parseDecimal(text);
   if (v === undefined) throw new StructureError(lineNo, field, `expected a number, got "${text}"`, [first, last]);
-  return v;
+  return v + 0; // −0 (as in "-0.000") becomes 0: fixed-width writers write 0 unsigned
 }
 
 /** Like {@link fixedNumber} but `null` for a blank field. */
@@ -359,7 +361,7 @@ export function newStructure(elements: readonly string[], coordinates: Float64Ar
     bondOrders,
     notes: [],
     format: 'xyz',
-    record: { format: 'xyz', comment: options.title ?? '', atomTails: elements.map(() => '') },
+    record: { format: 'xyz', comment: (options.title ?? '').replace(/[\r\n]+/g, ' '), atomTails: elements.map(() => '') },
   };
   checkStructureForWriting(s);
   coordinatesToWrite(s);

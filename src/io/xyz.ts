@@ -170,7 +170,7 @@ export function writeXyz(s: Structure, coordinates?: Float64Array): string {
   const x = coordinatesToWrite(s, coordinates);
   const n = s.elements.length;
   const record = s.format === 'xyz' ? s.record : null;
-  const comment = record && record.comment.trim() === s.title ? record.comment : s.title.replace(/[\r\n]+/g, ' ');
+  const comment = (record && record.comment.trim() === s.title ? record.comment : s.title).replace(/[\r\n]+/g, ' ');
   const tails = record && record.atomTails.length === n ? record.atomTails : null;
   const lines = [String(n), comment];
   for (let a = 0; a < n; a++) {
