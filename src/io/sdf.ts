@@ -191,6 +191,7 @@ function readRecord(lines: string[], start: number, recordNo: number): { structu
   } else {
     formalCharges.set(codeCharges);
   }
+  chargeLines &&= formalCharges.some((q) => q !== 0);
 
   // Data items, up to $$$$.
   const dataItems: SdfDataItem[] = [];

@@ -101,7 +101,7 @@ export interface SdfRecord {
   atoms: SdfAtomRecord[];
   /** One entry per bond, in the order of {@link Structure.bonds}. */
   bonds: SdfBondRecord[];
-  /** Whether the record gave charges in `M  CHG` lines (the writer then writes them so again). */
+  /** Whether the record gave charges in `M  CHG` lines and some atom is charged (the writer then writes `M  CHG` lines again). */
   chargeLines: boolean;
   /** The structural-text lines (2 per entry of the counts line's sss). */
   structuralText: string[];
