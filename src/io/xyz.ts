@@ -1,6 +1,8 @@
 /**
  * XYZ text (the plain multi-frame format: atom count, a comment line, then
- * one `Element x y z` line per atom), for results and trajectories.
+ * one `Element x y z` line per atom, ångström), for results and
+ * trajectories: the frame writer `xyzFrame`, and the Structure reader and
+ * writers `readXyz`, `writeXyz`, `writeXyzFrames`.
  * @module
  */
 import { ELEMENT_SYMBOLS, isElement } from '../elements.js';
