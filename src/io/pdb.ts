@@ -200,7 +200,10 @@ export function readPdb(text: string): PdbStructure[] {
         }
         usesModels = true;
         open = true;
-        const modelNumber = fixedInteger(line, lineNo, 11, 14, 'model serial');
+        // Columns 11-14 per v3.3; some writers put the serial elsewhere after "MODEL" (accepted when it is the only thing there).
+        const loose = line.slice(6).trim();
+        const modelNumber =
+          columns(line, 11, 14).trim() === '' && /^\d+$/.test(loose) ? Number(loose) : fixedInteger(line, lineNo, 11, 14, 'model serial');
         current = newModel(lineNo, modelNumber);
         models.push(current);
         break;

@@ -172,6 +172,14 @@ describe('readPdb: MODEL/ENDMDL', () => {
     for (const m of models) expect(Array.from(m.bonds!)).toEqual([0, 1, 0, 2]);
   });
 
+  it('takes a model serial written out of columns 11-14 when it is alone on the line', () => {
+    const loose = twoModels().replace('MODEL        2', 'MODEL 2');
+    expect(readPdb(loose).map((m) => m.record.modelNumber)).toEqual([1, 2]);
+    expect(errorOf(() => readPdb(twoModels().replace('MODEL        2', 'MODEL     two'))).message).toBe(
+      'line 6, columns 11-14 (model serial): expected a whole number, got "two"',
+    );
+  });
+
   it('writes them back as models', () => {
     const models = readPdb(twoModels());
     const text = writePdbModels(models);

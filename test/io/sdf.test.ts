@@ -119,6 +119,21 @@ describe('readSdf', () => {
     ]);
   });
 
+  it('M  RAD alone also makes the atom block charges ignored; a charge set later is written as M  CHG', () => {
+    const lines = ['radical', '', '', '  2  1  0  0  0  0  0  0  0  0999 V2000',
+      '    0.0000    0.0000    0.0000 C   0  3  0  0  0  0  0  0  0  0  0  0',
+      '    1.0000    0.0000    0.0000 O   0  0  0  0  0  0  0  0  0  0  0  0',
+      '  1  2  1  0  0  0', 'M  RAD  1   1   2', 'M  END'];
+    const [s] = readSdf(lines.join('\n'));
+    expect(Array.from(s.formalCharges)).toEqual([0, 0]);
+    expect(s.record.properties).toEqual(['M  RAD  1   1   2']);
+    expect(s.notes).toEqual(["line 5: the atom block's charge +1 of atom 1 is ignored: M  CHG/M  RAD lines are present, and they give 0"]);
+    s.formalCharges[1] = -1;
+    const text = writeSdf(s);
+    expect(text).toContain('\nM  CHG  1   2  -1\nM  RAD  1   1   2\nM  END\n');
+    expect(Array.from(readSdf(text)[0].formalCharges)).toEqual([0, -1]);
+  });
+
   it('keeps M  ISO, the mass difference, the chiral flag', () => {
     expect(charged.record.properties).toEqual(['M  ISO  1   3  13']);
     expect(charged.record.atoms[2].massDifference).toBe(1);
