@@ -322,10 +322,15 @@ export function checkStructureForWriting(s: StructureBase): void {
 
 /** Options for {@link newStructure}. */
 export interface NewStructureOptions {
+  /** Title (default `''`). */
   title?: string;
+  /** Atom names, one per atom (default all `''`). */
   names?: string[];
+  /** Formal charges, one per atom (default all 0). */
   formalCharges?: Int32Array;
+  /** Bonded pairs, 2 × B, 0-based, in any order (default `null`: no bonds given). */
   bonds?: Int32Array | null;
+  /** Bond orders, one per pair of `bonds` (1, 2, 3 or 1.5; default `null`). */
   bondOrders?: Float64Array | null;
 }
 
@@ -333,7 +338,8 @@ export interface NewStructureOptions {
  * A structure made in code rather than read (an XYZ-format structure with
  * no extra record data), e.g. to write it as PDB or SDF. Bonds are sorted
  * into the {@link Structure.bonds} layout (orders follow). Arrays are copied.
- * Throws `RangeError` as {@link checkStructureForWriting} and when the
+ * Throws `RangeError` for an element that is not a symbol, arrays of the
+ * wrong length, bonds out of range or joining an atom to itself, and when the
  * coordinates are not 3N long.
  */
 export function newStructure(elements: readonly string[], coordinates: Float64Array, options: NewStructureOptions = {}): XyzStructure {
