@@ -120,3 +120,25 @@ export { modeAnimation } from './vibrations/animate.js';
 export type { ModeAnimationOptions } from './vibrations/animate.js';
 
 export * from './hessian/index.js';
+
+export { StructureError, newStructure } from './io/structure.js';
+export type {
+  Structure,
+  StructureBase,
+  PdbStructure,
+  XyzStructure,
+  SdfStructure,
+  PdbRecord,
+  PdbAtomRecord,
+  XyzRecord,
+  SdfRecord,
+  SdfAtomRecord,
+  SdfBondRecord,
+  SdfDataItem,
+  NewStructureOptions,
+} from './io/structure.js';
+export { readPdb, writePdb, writePdbModels, elementFromAtomName } from './io/pdb.js';
+export { readSdf, readMol, writeSdf, writeMol, writeSdfRecords } from './io/sdf.js';
+export { readXyz, writeXyz, writeXyzFrames } from './io/xyz.js';
+export { STRUCTURE_FORMATS, structureFormatFor } from './io/structure-format.js';
+export type { StructureFormat } from './io/structure-format.js';
