@@ -5,23 +5,26 @@
 import { extname } from 'node:path';
 import { ModelError } from '../errors.js';
 import { writeFileWhole } from '../io/write-file.js';
+import { structureFormatFor } from '../io/structure-format.js';
 import { xyzFrame } from '../io/xyz.js';
 import type { Model } from '../model/model.js';
+import { structureOfModel } from '../params/from-structure.js';
 import { relaxModel, type RelaxResult } from '../model/relax.js';
 import type { MinimizeOptions } from '../optimize/minimize.js';
 import { defaultMaxForce } from '../units.js';
 import type { CommandOutput } from './commands.js';
 import { InputError, UsageError } from './errors.js';
+import type { LoadedInput } from './io.js';
 import { num, table, unitLabels } from './format.js';
 
 /** The methods `--method` accepts. */
 export const METHODS = ['lbfgs', 'cg', 'sd', 'fire'] as const;
 
-/** Output formats by extension (lower case). */
-const WRITERS: Record<string, (model: Model, x: Float64Array) => string> = {
-  '.json': (model, x) => JSON.stringify(model.toJSON(x), null, 2) + '\n',
-  '.xyz': (model, x) => xyzFrame(model.atoms.map((a) => a.element), x, model.title),
-};
+/** Writes the result: the model (or the structure read) with coordinates x. */
+type Writer = (input: LoadedInput, x: Float64Array) => string;
+
+const MODEL_WRITER: Writer = (input, x) => JSON.stringify(input.model.toJSON(x), null, 2) + '\n';
+const KNOWN = '.json, .pdb, .xyz, .sdf, .mol';
 
 /** Parsed options of the command. */
 export interface MinimizeArguments {
@@ -35,25 +38,34 @@ export interface MinimizeArguments {
   readonly every: number;
 }
 
-/** Check the output extension before any work; returns its writer. */
-export function writerFor(output: string): (model: Model, x: Float64Array) => string {
+/**
+ * Check the output extension before any work; returns its writer. `.json`
+ * writes the model file; `.pdb`, `.xyz`, `.sdf`, `.mol` write a structure:
+ * the structure read (every record kept, new coordinates) when the input was
+ * a structure file, else one made from the model (elements, names,
+ * connectivity; coordinates in Å).
+ */
+export function writerFor(output: string): Writer {
   const ext = extname(output).toLowerCase();
-  const writer = WRITERS[ext];
-  if (writer === undefined) {
-    throw new UsageError(
-      `-o ${output}: cannot write "${ext || '(no extension)'}" files (known: ${Object.keys(WRITERS).join(', ')})`,
-    );
+  if (ext === '.json') return MODEL_WRITER;
+  const format = structureFormatFor(output);
+  if (format === undefined) {
+    throw new UsageError(`-o ${output}: cannot write "${ext || '(no extension)'}" files (known: ${KNOWN})`);
   }
-  return writer;
+  return (input, x) =>
+    input.structure !== undefined
+      ? format.write(input.structure.structure, x)
+      : format.write(structureOfModel(input.model, x));
 }
 
 /** Run the command; progress goes to `progress` (stderr) when it is a terminal. */
 export function minimizeCommand(
-  model: Model,
+  input: LoadedInput,
   args: MinimizeArguments,
   progress: NodeJS.WriteStream | undefined,
 ): CommandOutput {
   const writer = writerFor(args.output);
+  const model = input.model;
   if (args.trajectory !== undefined && extname(args.trajectory).toLowerCase() !== '.xyz') {
     throw new UsageError(`--trajectory ${args.trajectory}: a trajectory is written as .xyz`);
   }
@@ -86,7 +98,14 @@ export function minimizeCommand(
     if (tty) progress.write('\n');
   }
   try {
-    writeFileWhole(args.output, writer(model, result.x));
+    let text: string;
+    try {
+      text = writer(input, result.x);
+    } catch (e) {
+      // a value that does not fit the format's columns (e.g. PDB's 8.3): nothing is written
+      throw new InputError(args.output, `cannot be written: ${(e as Error).message}`);
+    }
+    writeFileWhole(args.output, text);
     if (args.trajectory !== undefined) {
       frames.push(xyzFrame(elements, result.x, `final energy ${result.energy}`));
       writeFileWhole(args.trajectory, frames.join(''));

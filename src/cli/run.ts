@@ -4,10 +4,13 @@
  * usage (one line on stderr, nothing on stdout).
  * @module
  */
+import { extname } from 'node:path';
 import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { structureFormatFor } from '../io/structure-format.js';
 import { checkGradientCommand, energyCommand, type CommandOutput } from './commands.js';
 import { InputError, UsageError } from './errors.js';
-import { loadModel } from './io.js';
+import { loadInput, type LoadedInput } from './io.js';
+import { parametrizeCommand } from './parametrize.js';
 import { METHODS, minimizeCommand, writerFor } from './minimize.js';
 import { animationChoice, modesCommand } from './modes.js';
 
@@ -20,12 +23,16 @@ usage:
   strainwise check-gradient FILE [--json]  analytic gradient against numerical derivatives
   strainwise minimize FILE -o OUT [--method lbfgs|cg|sd|fire] [--max-force X]
              [--max-iterations N] [--trajectory T.xyz --every K] [--json]
-                                           relax the structure; OUT is .json (model) or .xyz
+                                           relax the structure; OUT is .json (model), .pdb, .xyz, .sdf or .mol
+  strainwise parametrize FILE -o OUT.json [--json]
+                                           perceive a structure file's topology, assign generic parameters
   strainwise modes FILE [--temperature T] [--max-force X] [--animate K|all -o OUT.xyz] [--json]
                                            normal modes, wavenumbers (cm⁻¹), harmonic thermochemistry
   strainwise --help | --version
 
-FILE is a model file (format "strainwise-model", version 1; see docs/model-file.md).
+FILE is a model file (format "strainwise-model", version 1; see docs/model-file.md) or a
+structure file (.pdb, .xyz, .sdf, .mol), which gets generic parameters first: those are for
+clean-up and rough geometry, not quantitative energies.
 --json prints one JSON document on stdout; messages go to stderr.
 exit status: 0 success, 1 ran but failed (a wrong gradient, no convergence), 2 bad input or usage.
 --max-force is in the model's units (default 0.01 kcal/mol/Å, converted); for modes it is the
@@ -35,13 +42,26 @@ stationary-point threshold (a warning on stderr above it). --temperature is in K
 type Command = (args: readonly string[]) => CommandOutput;
 
 /** A command that reads one model file and takes only `--json`. */
-function modelCommand(name: string, run: (model: ReturnType<typeof loadModel>, json: boolean) => CommandOutput): Command {
+/** Say on stderr what a structure-file input became (generic parameters, which structure of several). */
+function noteInput(file: string, input: LoadedInput): void {
+  const s = input.structure;
+  if (s === undefined) return;
+  if (s.count > 1) process.stderr.write(`strainwise: ${file}: holds ${s.count} structures; the first is used\n`);
+  for (const note of s.structure.notes) process.stderr.write(`strainwise: ${file}: ${note}\n`);
+  process.stderr.write(
+    `strainwise: ${file}: ${s.generated.perceivedBonds ? 'bonds perceived from coordinates; ' : ''}generic parameters assigned (for clean-up and rough geometry, not quantitative energies)\n`,
+  );
+}
+
+function modelCommand(name: string, run: (model: LoadedInput['model'], json: boolean) => CommandOutput): Command {
   return (args) => {
     const { values, positionals } = parse(args, { json: { type: 'boolean' } });
     if (positionals.length !== 1) {
       throw new UsageError(`${name} needs exactly one FILE, got ${positionals.length === 0 ? 'none' : positionals.length}`);
     }
-    return run(loadModel(positionals[0]), values.json === true);
+    const input = loadInput(positionals[0]);
+    noteInput(positionals[0], input);
+    return run(input.model, values.json === true);
   };
 }
 
@@ -78,9 +98,10 @@ const minimize: Command = (args) => {
   }
   const every = numberOption('--every', values.every as string | undefined, 'count') ?? 1;
   if (every < 1) throw new UsageError('--every: expected a whole number ≥ 1, got "0"');
-  const model = loadModel(positionals[0]);
+  const input = loadInput(positionals[0]);
+  noteInput(positionals[0], input);
   return minimizeCommand(
-    model,
+    input,
     {
       file: positionals[0],
       output,
@@ -110,7 +131,9 @@ const modes: Command = (args) => {
   const animate = animationChoice(values.animate as string | undefined, output);
   const temperature = numberOption('--temperature', values.temperature as string | undefined, 'positive');
   const maxForce = numberOption('--max-force', values['max-force'] as string | undefined, 'positive');
-  const model = loadModel(positionals[0]);
+  const input = loadInput(positionals[0]);
+  noteInput(positionals[0], input);
+  const model = input.model;
   return modesCommand(
     model,
     { file: positionals[0], json: values.json === true, temperature, maxForce, animate, output },
@@ -123,6 +146,21 @@ const COMMANDS: Record<string, Command> = {
   'check-gradient': modelCommand('check-gradient', checkGradientCommand),
   minimize,
   modes,
+  parametrize: (args) => {
+    const { values, positionals } = parse(args, { json: { type: 'boolean' }, output: { type: 'string', short: 'o' } });
+    if (positionals.length !== 1) {
+      throw new UsageError(`parametrize needs exactly one FILE, got ${positionals.length === 0 ? 'none' : positionals.length}`);
+    }
+    const output = values.output as string | undefined;
+    if (output === undefined) throw new UsageError('parametrize needs -o OUT.json (the model file to write)');
+    if (extname(output).toLowerCase() !== '.json') throw new UsageError(`-o ${output}: parametrize writes a model file (.json)`);
+    if (structureFormatFor(positionals[0]) === undefined) {
+      throw new UsageError(`parametrize reads a structure file (.pdb, .xyz, .sdf, .mol), got "${positionals[0]}"`);
+    }
+    const input = loadInput(positionals[0]);
+    noteInput(positionals[0], input);
+    return parametrizeCommand(input, { file: positionals[0], output, json: values.json === true });
+  },
 };
 
 function parse<const O extends NonNullable<ParseArgsConfig['options']>>(args: readonly string[], options: O) {

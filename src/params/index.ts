@@ -27,3 +27,5 @@ export {
   pyramidalInversionConstant,
 } from './formulas.js';
 export type { TorsionRule, TorsionCentre } from './formulas.js';
+export { modelFromStructure, structureOfModel } from './from-structure.js';
+export type { StructureModel, StructureModelOptions } from './from-structure.js';
