@@ -250,6 +250,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       Y.push(new Float64Array(n));
     }
   }
+  const products = new Float64Array(2);
   let spareS: Float64Array = new Float64Array(method === 'lbfgs' ? n : 0);
   let spareY: Float64Array = new Float64Array(method === 'lbfgs' ? n : 0);
   let pairs = 0;
@@ -307,33 +308,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       }
       return;
     }
-    let k = newest;
-    let acc = 0;
-    {
-      const s = S[k];
-      for (let i = 0; i < n; i++) {
-        const v = -g[i];
-        d[i] = v;
-        acc += s[i] * v;
-      }
-    }
-    for (let j = 0; j < pairs; j++) {
-      const a = rho[k] * acc;
-      alpha[k] = a;
-      const y = Y[k];
-      if (j < pairs - 1) {
-        k = (k - 1 + history) % history;
-        const s = S[k];
-        acc = 0;
-        for (let i = 0; i < n; i++) {
-          const v = d[i] - a * y[i];
-          d[i] = v;
-          acc += s[i] * v;
-        }
-      } else {
-        for (let i = 0; i < n; i++) d[i] -= a * y[i];
-      }
-    }
+    const oldest = twoLoopFirst(d, g, S, Y, rho, alpha, newest, pairs, history);
     if (preconditioner) {
       preconditioner.whiten(d, zY);
       H0z.apply(zY);
@@ -341,28 +316,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     } else {
       H0.apply(d);
     }
-    // k is now the oldest pair
-    {
-      const y = Y[k];
-      acc = 0;
-      for (let i = 0; i < n; i++) acc += y[i] * d[i];
-    }
-    for (let j = 0; j < pairs; j++) {
-      const c = alpha[k] - rho[k] * acc;
-      const s = S[k];
-      if (j < pairs - 1) {
-        k = (k + 1) % history;
-        const y = Y[k];
-        acc = 0;
-        for (let i = 0; i < n; i++) {
-          const v = d[i] + c * s[i];
-          d[i] = v;
-          acc += y[i] * v;
-        }
-      } else {
-        for (let i = 0; i < n; i++) d[i] += c * s[i];
-      }
-    }
+    twoLoopSecond(d, S, Y, rho, alpha, oldest, pairs, history);
   };
 
   /** Teach H0 the pair (s, y), in whitened form when preconditioned. */
@@ -385,16 +339,9 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     // overwrites the oldest stored one.
     const s = spareS;
     const y = spareY;
-    let sy = 0;
-    let yy = 0;
-    for (let i = 0; i < n; i++) {
-      const si = xT[i] - x[i];
-      const yi = gT[i] - g[i];
-      s[i] = si;
-      y[i] = yi;
-      sy += si * yi;
-      yy += yi * yi;
-    }
+    differences(s, y, xT, x, gT, g, products);
+    const sy = products[0];
+    const yy = products[1];
     if (!(sy > EPS * yy) || !(yy > 0)) return;
     const slot = (newest + 1) % history;
     spareS = S[slot];
@@ -579,6 +526,117 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     if (rmsForce > 0 && rf <= rmsForce) return finish('rms-force', true);
     if (energyChange > 0 && Math.abs(f - fOld) <= energyChange) return finish('energy-change', true);
     if (more === false) return finish('stopped', false);
+  }
+}
+
+/*
+ * The hot loops of L-BFGS live in top-level functions rather than in
+ * minimize's closures: V8 then optimizes each once, instead of deoptimizing
+ * a closure whose code after its loop has not run yet (measured: the
+ * pair-storing closure was deoptimized on nearly every call).
+ */
+
+/** s = xNew − xOld, y = gNew − gOld; out[0] = sᵀy, out[1] = yᵀy. */
+function differences(
+  s: Float64Array,
+  y: Float64Array,
+  xNew: Float64Array,
+  xOld: Float64Array,
+  gNew: Float64Array,
+  gOld: Float64Array,
+  out: Float64Array,
+): void {
+  let sy = 0;
+  let yy = 0;
+  for (let i = 0; i < s.length; i++) {
+    const si = xNew[i] - xOld[i];
+    const yi = gNew[i] - gOld[i];
+    s[i] = si;
+    y[i] = yi;
+    sy += si * yi;
+    yy += yi * yi;
+  }
+  out[0] = sy;
+  out[1] = yy;
+}
+
+/**
+ * First loop of the two-loop recursion (Nocedal and Wright 2006, Algorithm
+ * 7.4) on d = −g, newest pair first, each update fused with the next inner
+ * product so every pass does one axpy and one dot product. Returns the slot
+ * of the oldest pair.
+ */
+function twoLoopFirst(
+  d: Float64Array,
+  g: Float64Array,
+  S: readonly Float64Array[],
+  Y: readonly Float64Array[],
+  rho: Float64Array,
+  alpha: Float64Array,
+  newest: number,
+  pairs: number,
+  history: number,
+): number {
+  const n = d.length;
+  let k = newest;
+  let acc = 0;
+  let s = S[k];
+  for (let i = 0; i < n; i++) {
+    const v = -g[i];
+    d[i] = v;
+    acc += s[i] * v;
+  }
+  for (let j = 0; j < pairs; j++) {
+    const a = rho[k] * acc;
+    alpha[k] = a;
+    const y = Y[k];
+    if (j === pairs - 1) {
+      for (let i = 0; i < n; i++) d[i] -= a * y[i];
+      break;
+    }
+    k = (k - 1 + history) % history;
+    s = S[k];
+    acc = 0;
+    for (let i = 0; i < n; i++) {
+      const v = d[i] - a * y[i];
+      d[i] = v;
+      acc += s[i] * v;
+    }
+  }
+  return k;
+}
+
+/** Second loop of the two-loop recursion, oldest pair first, fused like the first. */
+function twoLoopSecond(
+  d: Float64Array,
+  S: readonly Float64Array[],
+  Y: readonly Float64Array[],
+  rho: Float64Array,
+  alpha: Float64Array,
+  oldest: number,
+  pairs: number,
+  history: number,
+): void {
+  const n = d.length;
+  let k = oldest;
+  let y = Y[k];
+  let acc = 0;
+  for (let i = 0; i < n; i++) acc += y[i] * d[i];
+  for (let j = 0; j < pairs; j++) {
+    const c = alpha[k] - rho[k] * acc;
+    const s = S[k];
+    if (j === pairs - 1) {
+      for (let i = 0; i < n; i++) d[i] += c * s[i];
+      break;
+    }
+    k = (k + 1) % history;
+    y = Y[k];
+    acc = 0;
+    for (let i = 0; i < n; i++) {
+      const v = d[i] + c * s[i];
+      d[i] = v;
+      acc += y[i] * v;
+    }
   }
 }
 
