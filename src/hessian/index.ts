@@ -12,6 +12,7 @@ export { inversionHessian } from './inversion.js';
 export { periodicDihedralHessian, ryckaertBellemansHessian, harmonicImproperHessian } from './torsion.js';
 export { positionRestraintHessian, distanceRestraintHessian } from './restraint.js';
 export { tablesHessian } from './dense.js';
+export { NonbondedPairHessian } from './nonbonded.js';
 export { BlockSparseHessian } from './sparse.js';
 export { modelHessian, modelSparseHessian, hessianVectorProduct } from './model.js';
 export { finiteDifferenceHessian } from './finite-difference.js';
