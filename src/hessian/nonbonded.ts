@@ -20,16 +20,23 @@
  * lists (excluded and 1-4 pairs), then the 1-4 pairs with their scale
  * factors, each counted only when r² < r_c² (every pair without a cutoff).
  * With a cutoff the set depends on the geometry, so it is found again at
- * every {@link NonbondedPairHessian.update}, over all N(N − 1)/2 pairs
- * (no cell list: O(N²) distance tests per update). A pair at r = 0 (whose
- * energy is +∞ and gradient zero) and a pair with ε_ij = 0 and q_i q_j = 0
- * add no block.
+ * every {@link NonbondedPairHessian.update}, with a cell list of its own
+ * (cells of side ≥ r_c, each atom's pairs looked for in its own and the 26
+ * neighbouring cells; cells made larger when they would outnumber the
+ * atoms, as the energy kernel does): linear in N for a given density.
+ * Without a cutoff every pair i < j is visited in index order, O(N²). A pair
+ * at r = 0 (whose energy is +∞ and gradient zero) and a pair with ε_ij = 0
+ * and q_i q_j = 0 add no block. The order of the blocks (and so the rounding
+ * of their sums) depends on the path taken, not on who reads them: dense and
+ * block-sparse assembly read the same list.
  * @module
  */
 import type { NonbondedPairs } from '../terms/nonbonded.js';
 
 /** Numbers kept per pair block: A, B, then d = x_j − x_i. */
 const PER_PAIR = 5;
+/** Relative margin by which cells are made larger than the cutoff, against rounding in the cell index. */
+const CELL_MARGIN = 1 + 1e-9;
 
 /**
  * The nonbonded pair blocks of one pair set at one geometry. Make one per
@@ -51,8 +58,12 @@ export class NonbondedPairHessian {
   finite = true;
 
   readonly #stamp: Int32Array;
+  /** Cell list scratch: each atom's cell, the atoms in cell order, and each cell's start (≤ N + 1 cells). */
+  readonly #cellOf: Int32Array;
+  readonly #cellAtoms: Int32Array;
+  readonly #cellStart: Int32Array;
 
-  /** A pair Hessian of `pairs` (empty until {@link update}). */
+  /** A pair Hessian of `pairs` (empty until {@link update}); allocates its scratch once. */
   constructor(pairs: NonbondedPairs) {
     this.pairs = pairs;
     const n = pairs.atomCount;
@@ -61,6 +72,10 @@ export class NonbondedPairHessian {
     this.atoms = new Int32Array(2 * capacity);
     this.coefficients = new Float64Array(PER_PAIR * capacity);
     this.#stamp = new Int32Array(n);
+    const cells = pairs.cutoff === Infinity ? 0 : n;
+    this.#cellOf = new Int32Array(cells);
+    this.#cellAtoms = new Int32Array(cells);
+    this.#cellStart = new Int32Array(cells === 0 ? 0 : cells + 2);
   }
 
   /**
@@ -85,11 +100,17 @@ export class NonbondedPairHessian {
     const stamp = this.#stamp;
     stamp.fill(-1);
     const { skipStart, skipList } = p;
-    for (let i = 0; i < n - 1; i++) {
-      for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[skipList[k]] = i;
-      for (let j = i + 1; j < n; j++) {
-        if (stamp[j] === i) continue;
-        this.#pair(x, i, j, useLJ ? 1 : 0, useCoulomb ? 1 : 0, rc2);
+    const sLJ1 = useLJ ? 1 : 0;
+    const sC1 = useCoulomb ? 1 : 0;
+    if (rc2 < Infinity) {
+      this.#cellPairs(x, sLJ1, sC1, rc2);
+    } else {
+      for (let i = 0; i < n - 1; i++) {
+        for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[skipList[k]] = i;
+        for (let j = i + 1; j < n; j++) {
+          if (stamp[j] === i) continue;
+          this.#pair(x, i, j, sLJ1, sC1, rc2);
+        }
       }
     }
     const list = p.scaledPairs;
@@ -99,6 +120,87 @@ export class NonbondedPairHessian {
       for (let m = 0; m < list.length; m += 2) this.#pair(x, list[m], list[m + 1], sLJ, sC, rc2);
     }
     return this;
+  }
+
+  /**
+   * The unscaled pairs within the cutoff, by cells: atoms sorted into cells
+   * of side ≥ r_c over the coordinates' bounding box, and for each atom i
+   * the atoms j > i of its own and the 26 neighbouring cells that are not
+   * on its skip list. `x` must be finite.
+   */
+  #cellPairs(x: Float64Array, sLJ: number, sC: number, rc2: number): void {
+    const p = this.pairs;
+    const n = p.atomCount;
+    const cellOf = this.#cellOf;
+    const cellAtoms = this.#cellAtoms;
+    const cellStart = this.#cellStart;
+    const stamp = this.#stamp;
+    const { skipStart, skipList } = p;
+    let minX = Infinity;
+    let minY = Infinity;
+    let minZ = Infinity;
+    let maxX = -Infinity;
+    let maxY = -Infinity;
+    let maxZ = -Infinity;
+    for (let a = 0; a < n; a++) {
+      minX = Math.min(minX, x[3 * a]);
+      maxX = Math.max(maxX, x[3 * a]);
+      minY = Math.min(minY, x[3 * a + 1]);
+      maxY = Math.max(maxY, x[3 * a + 1]);
+      minZ = Math.min(minZ, x[3 * a + 2]);
+      maxZ = Math.max(maxZ, x[3 * a + 2]);
+    }
+    const spanX = maxX - minX;
+    const spanY = maxY - minY;
+    const spanZ = maxZ - minZ;
+    let side = p.cutoff * CELL_MARGIN;
+    let nx = 1;
+    let ny = 1;
+    let nz = 1;
+    for (let round = 0; round < 4000; round++) {
+      nx = Math.max(1, Math.floor(spanX / side));
+      ny = Math.max(1, Math.floor(spanY / side));
+      nz = Math.max(1, Math.floor(spanZ / side));
+      if (nx * ny * nz <= n) break;
+      side *= 1.25;
+    }
+    if (!(nx * ny * nz <= n)) nx = ny = nz = 1;
+    const fx = spanX > 0 ? nx / spanX : 0;
+    const fy = spanY > 0 ? ny / spanY : 0;
+    const fz = spanZ > 0 ? nz / spanZ : 0;
+    const cells = nx * ny * nz;
+    // counting sort by cell: cellStart[c + 1] counts, then prefix sums
+    cellStart.fill(0, 0, cells + 2);
+    for (let a = 0; a < n; a++) {
+      const cx = Math.min(nx - 1, Math.floor((x[3 * a] - minX) * fx));
+      const cy = Math.min(ny - 1, Math.floor((x[3 * a + 1] - minY) * fy));
+      const cz = Math.min(nz - 1, Math.floor((x[3 * a + 2] - minZ) * fz));
+      const c = (cz * ny + cy) * nx + cx;
+      cellOf[a] = c;
+      cellStart[c + 2]++;
+    }
+    for (let c = 0; c < cells; c++) cellStart[c + 2] += cellStart[c + 1];
+    // cellStart[c + 1] runs through cell c while placing; afterwards it is cell c's start
+    for (let a = 0; a < n; a++) cellAtoms[cellStart[cellOf[a] + 1]++] = a;
+    for (let i = 0; i < n; i++) {
+      for (let k = skipStart[i]; k < skipStart[i + 1]; k++) stamp[skipList[k]] = i;
+      const c = cellOf[i];
+      const cx = c % nx;
+      const cy = Math.floor(c / nx) % ny;
+      const cz = Math.floor(c / (nx * ny));
+      for (let oz = Math.max(0, cz - 1); oz <= Math.min(nz - 1, cz + 1); oz++) {
+        for (let oy = Math.max(0, cy - 1); oy <= Math.min(ny - 1, cy + 1); oy++) {
+          for (let ox = Math.max(0, cx - 1); ox <= Math.min(nx - 1, cx + 1); ox++) {
+            const other = (oz * ny + oy) * nx + ox;
+            for (let m = cellStart[other]; m < cellStart[other + 1]; m++) {
+              const j = cellAtoms[m];
+              if (j <= i || stamp[j] === i) continue;
+              this.#pair(x, i, j, sLJ, sC, rc2);
+            }
+          }
+        }
+      }
+    }
   }
 
   /** One pair with Lennard-Jones scaled by `sLJ` and Coulomb by `sC` (0: left out). */

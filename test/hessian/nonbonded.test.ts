@@ -11,7 +11,7 @@ import { NonbondedPairHessian } from '../../src/hessian/nonbonded.js';
 import { BlockSparseHessian } from '../../src/hessian/sparse.js';
 import { parseModel, type Model } from '../../src/model/model.js';
 import type { ModelFile } from '../../src/model/schema.js';
-import { accumulateNonbondedAllPairs, createNonbondedPairs } from '../../src/terms/nonbonded.js';
+import { accumulateNonbonded, accumulateNonbondedAllPairs, createNonbondedPairs } from '../../src/terms/nonbonded.js';
 import { butane, defaultNonbonded } from '../fixtures/nonbonded-models.js';
 import { createRandom } from '../helpers/random.js';
 import { centralHessian, matVec, maxAbs, relativeError, symmetricEigenvalues } from './support.js';
@@ -135,6 +135,7 @@ describe.each(VARIANTS)('nonbonded Hessian of butane(): %s', (_name, block) => {
 
 describe('cutoffs', () => {
   it('a cutoff beyond every distance gives the Hessian of no cutoff, bit for bit (the shift is a constant)', () => {
+    // one cell then holds every atom, in index order, so the blocks come in the same order too
     const x = parseModel(butane()).coordinates;
     const far = parseModel(butane({ ...defaultNonbonded(), cutoff: 50 }));
     const none = parseModel(butane({ ...defaultNonbonded(), cutoff: null }));
@@ -186,6 +187,84 @@ describe('cutoffs', () => {
     withCutoff.addToDense(a, size);
     without.addToDense(b, size);
     expect(Array.from(a)).toEqual(Array.from(b));
+  });
+});
+
+describe('the cell list of the cutoff path', () => {
+  /** 120 atoms at random in a 14 Å box, with bonds i–(i+1) giving exclusions and 1-4 pairs. */
+  function cluster(seed: number, cutoff: number) {
+    const rng = createRandom(seed);
+    const n = 120;
+    const x = Float64Array.from({ length: 3 * n }, () => rng.uniform(0, 14));
+    const excluded: number[] = [];
+    const scaled: number[] = [];
+    for (let i = 0; i + 1 < n; i++) excluded.push(i, i + 1);
+    for (let i = 0; i + 2 < n; i++) excluded.push(i, i + 2);
+    for (let i = 0; i + 3 < n; i++) scaled.push(i, i + 3);
+    const pairs = createNonbondedPairs({
+      atomCount: n,
+      lennardJones: {
+        rmin: Array.from({ length: n }, () => rng.uniform(1, 2)),
+        epsilon: Array.from({ length: n }, () => rng.uniform(0.01, 0.2)),
+        combination: 'geometric',
+      },
+      coulomb: { charges: Array.from({ length: n }, () => rng.uniform(-0.5, 0.5)), constant: 332 },
+      excluded,
+      scaled,
+      scale14: { lennardJones: 0.5, coulomb: 0.75 },
+      cutoff,
+    });
+    return { x, pairs, excluded, scaled, n };
+  }
+
+  it('finds exactly the counted pairs within the cutoff (compared with a plain double loop), over many cells', () => {
+    for (const [seed, cutoff] of [
+      [41, 3],
+      [42, 4.5],
+      [43, 1.2],
+    ] as const) {
+      const { x, pairs, excluded, scaled, n } = cluster(seed, cutoff);
+      const hessian = new NonbondedPairHessian(pairs).update(x);
+      const found = new Set<string>();
+      for (let m = 0; m < hessian.count; m++) {
+        const key = `${hessian.atoms[2 * m]}-${hessian.atoms[2 * m + 1]}`;
+        expect(found.has(key), `pair ${key} twice`).toBe(false);
+        found.add(key);
+      }
+      const skip = new Set<string>();
+      for (let e = 0; e < excluded.length; e += 2) skip.add(`${excluded[e]}-${excluded[e + 1]}`);
+      const expected = new Set<string>();
+      for (let i = 0; i < n; i++) {
+        for (let j = i + 1; j < n; j++) {
+          const r = Math.hypot(x[3 * j] - x[3 * i], x[3 * j + 1] - x[3 * i + 1], x[3 * j + 2] - x[3 * i + 2]);
+          if (r < cutoff && !skip.has(`${i}-${j}`)) expected.add(`${i}-${j}`);
+        }
+      }
+      expect(scaled.length).toBeGreaterThan(0);
+      expect(expected.size).toBeGreaterThan(10);
+      expect(expected.size).toBeLessThan((n * (n - 1)) / 2 - excluded.length / 2);
+      expect([...found].sort()).toEqual([...expected].sort());
+    }
+  });
+
+  it('its Hessian matches differences of the cell-list energy gradient (model-free, 120 atoms)', () => {
+    const { x, pairs } = cluster(44, 3);
+    // the stencil below moves a coordinate by at most 2 · 1e-5 · 14 < 3e-4: no pair crosses r = 3
+    expect(cutoffMargin(x, 3)).toBeGreaterThan(1e-3);
+    const size = x.length;
+    const hessian = new NonbondedPairHessian(pairs).update(x);
+    const h = new Float64Array(size * size);
+    hessian.addToDense(h, size);
+    const numeric = centralHessian(
+      (y) => {
+        const g = new Float64Array(y.length);
+        accumulateNonbonded(y, pairs, g);
+        return g;
+      },
+      x,
+      1e-5,
+    );
+    expect(relativeError(h, numeric)).toBeLessThan(1e-7);
   });
 });
 
