@@ -14,7 +14,7 @@ import type { ModelFile } from '../../src/model/schema.js';
 import { accumulateNonbonded, accumulateNonbondedAllPairs, createNonbondedPairs } from '../../src/terms/nonbonded.js';
 import { butane, defaultNonbonded } from '../fixtures/nonbonded-models.js';
 import { createRandom } from '../helpers/random.js';
-import { centralHessian, matVec, maxAbs, relativeError, symmetricEigenvalues } from './support.js';
+import { centralHessian, matVec, maxAbs, relativeError, rotate, symmetricEigenvalues } from './support.js';
 
 const LJ = defaultNonbonded().lennardJones!;
 type Block = NonNullable<ModelFile['nonbonded']>;
@@ -77,6 +77,27 @@ describe.each(VARIANTS)('nonbonded Hessian of butane(): %s', (_name, block) => {
       expect(cutoffMargin(y, block.cutoff), `case ${c}: a pair is close to the cutoff`).toBeGreaterThan(2e-3);
       const h = modelHessian(model, y);
       expect(relativeError(h, centralHessian(gradientOf(model), y, 1e-4)), `case ${c}`).toBeLessThan(1e-8);
+    }
+  });
+
+  it('translation (block rows sum to zero) and rotation (H·(ω × x) = ω × g), at 4 geometries', () => {
+    const rng = createRandom(37);
+    for (const y of geometries(model, 38).slice(0, 4)) {
+      const h = modelHessian(model, y);
+      const g = gradientOf(model)(y);
+      const scale = maxAbs(h);
+      for (let r = 0; r < size; r++) {
+        for (let q = 0; q < 3; q++) {
+          let sum = 0;
+          for (let b = 0; b < size / 3; b++) sum += h[r * size + 3 * b + q];
+          expect(Math.abs(sum)).toBeLessThanOrEqual(1e-13 * scale * model.atomCount);
+        }
+      }
+      const omega = rng.unitVector();
+      const left = matVec(h, rotate(omega, y));
+      const right = rotate(omega, g);
+      const allowed = 1e-13 * (scale * maxAbs(y) * size + maxAbs(g));
+      for (let e = 0; e < size; e++) expect(Math.abs(left[e] - right[e])).toBeLessThanOrEqual(allowed);
     }
   });
 
