@@ -1,8 +1,9 @@
 // npm run bench:hessian: median time of Hessian assembly. Dense (3N)×(3N)
 // at 30/100/300/1000 atoms, and block-sparse (symbolic pass once, numeric
-// pass per geometry, one Hessian-vector product) at 1e4 and 1e5 terms.
+// pass per geometry, one Hessian-vector product) at 1e4 and 1e5 terms, and
+// nonbonded pair blocks within a cutoff (update and product) at 1e3 and 1e4 atoms.
 // Prints medians; nothing here asserts a time.
-import { BlockSparseHessian, createTable, tablesHessian } from '../dist/index.js';
+import { BlockSparseHessian, createNonbondedPairs, createTable, NonbondedPairHessian, tablesHessian } from '../dist/index.js';
 
 let seed = 2468;
 const random = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
@@ -91,5 +92,26 @@ for (const terms of [1e4, 1e5]) {
   const multiply = median(() => sparse.multiply(v, out), 11);
   console.log(
     `${String(count).padStart(8)} ${String(atoms).padStart(8)} ${String(sparse.blockCount).padStart(8)} ${ms(symbolic)}     ${ms(update)}  ${((update * 1e6) / count).toFixed(0).padStart(8)}   ${ms(multiply)}`,
+  );
+}
+
+console.log('\nnonbonded pair blocks (Lennard-Jones + Coulomb, random atoms at 0.1 atoms/Å³, cutoff 10 Å)');
+console.log('   atoms    pairs in cutoff   update ms   multiply ms   ns/pair (update)');
+for (const atoms of [1e3, 1e4]) {
+  const side = Math.cbrt(atoms / 0.1);
+  const x = Float64Array.from({ length: 3 * atoms }, () => side * random());
+  const pairs = createNonbondedPairs({
+    atomCount: atoms,
+    lennardJones: { rmin: new Float64Array(atoms).fill(3.2), epsilon: new Float64Array(atoms).fill(0.15), combination: 'geometric' },
+    coulomb: { charges: Float64Array.from({ length: atoms }, (_, a) => (a % 2 === 0 ? 0.4 : -0.4)), constant: 332.0637 },
+    cutoff: 10,
+  });
+  const hessian = new NonbondedPairHessian(pairs);
+  const update = median(() => hessian.update(x), 5);
+  const v = x.map(() => random() - 0.5);
+  const y = new Float64Array(v.length);
+  const multiply = median(() => hessian.multiplyAdd(v, y), 5);
+  console.log(
+    `${String(atoms).padStart(8)} ${String(hessian.count).padStart(18)} ${ms(update)}   ${ms(multiply)}     ${((update * 1e6) / hessian.count).toFixed(0).padStart(8)}`,
   );
 }

@@ -1,6 +1,6 @@
 /**
- * Hessians of the bend kinds: harmonic angle (a function of θ) and cosine
- * angle (a function of cos θ). The vertex is the middle atom j; u = x_i − x_j,
+ * Hessians of the bend kinds: harmonic angle (a function of θ) and the
+ * cosine, cosine-series and periodic angles (functions of cos θ). The vertex is the middle atom j; u = x_i − x_j,
  * v = x_k − x_j, U = |u|, V = |v|, û = u/U, v̂ = v/V, c = u × v, n̂ = c/|c|.
  * Both are first written over (u, v) and then spread over the atoms
  * (x_i ↦ u, x_k ↦ v, x_j ↦ −u − v).
@@ -35,7 +35,11 @@
  *   ∇²_uu cos θ = −(u vᵀ + v uᵀ)/(U³V) + 3 cos θ u uᵀ/U⁴ − cos θ I/U²
  *   ∇²_uv cos θ = I/(UV) − v vᵀ/(U V³) − u uᵀ/(U³ V) + cos θ u vᵀ/(U² V²)
  * (row index on u, column on v), ∇²_vv by exchanging u and v: smooth
- * everywhere but at coincident atoms, and H = k ∇c ∇cᵀ + k (c − c0) ∇²c.
+ * everywhere but at coincident atoms, and H = E''(c) ∇c ∇cᵀ + E'(c) ∇²c:
+ * cosine angle E' = k (c − c0), E'' = k; cosine series E' = c1 + 4 c2 c,
+ * E'' = 4 c2; periodic E' = −a·sign·n U_{n−1}(c), E'' = −a·sign·n U′_{n−1}(c)
+ * (Chebyshev polynomials of the second kind, T′_n = n U_{n−1}). None has a
+ * 1/sin θ: the three are smooth through 0° and 180°.
  * @module
  */
 import type { TermTable } from '../terms/table.js';
@@ -58,6 +62,16 @@ const P_V = new Float64Array(3);
 const N_HAT = new Float64Array(3);
 /** Inputs of {@link thetaInner}: u, v, c (3 each), |c|, u · v, E', E''. */
 const ARGS = new Float64Array(13);
+
+/** Which energy of c = cos θ {@link cosinePolynomialHessian} differentiates. */
+const enum Cosine {
+  /** ½ k (c − c0)², params [k, c0]. */
+  Square,
+  /** c0 + c1 c + c2 (2c² − 1), params [c0, c1, c2]. */
+  Series,
+  /** a [1 − sign · T_n(c)], params [a, n, sign]. */
+  Periodic,
+}
 
 /** Spreads {@link inner} over the three atoms and hands it to the sink. */
 function emit(sink: HessianSink, atoms: Int32Array, base: number): void {
@@ -200,67 +214,131 @@ export const harmonicAngleHessian: HessianKernel = {
 export const cosineAngleHessian: HessianKernel = {
   slots: SLOTS,
   accumulate(x: Float64Array, table: TermTable, sink: HessianSink): void {
-    const { atoms, params, count } = table;
-    for (let t = 0; t < count; t++) {
-      const i = 3 * atoms[3 * t];
-      const j = 3 * atoms[3 * t + 1];
-      const k3 = 3 * atoms[3 * t + 2];
-      const kf = params[2 * t];
-      const cos0 = params[2 * t + 1];
-      const ux = x[i] - x[j];
-      const uy = x[i + 1] - x[j + 1];
-      const uz = x[i + 2] - x[j + 2];
-      const vx = x[k3] - x[j];
-      const vy = x[k3 + 1] - x[j + 1];
-      const vz = x[k3 + 2] - x[j + 2];
-      const U2 = ux * ux + uy * uy + uz * uz;
-      const V2 = vx * vx + vy * vy + vz * vz;
-      const uv = Math.sqrt(U2 * V2);
-      if (!(uv > 0)) {
-        inner.fill(0);
-        emit(sink, atoms, 3 * t);
-        continue;
-      }
-      let c = (ux * vx + uy * vy + uz * vz) / uv;
-      if (c > 1) c = 1;
-      else if (c < -1) c = -1;
-      const f = kf * (c - cos0);
-      // ∇_u c = a v − bu u, ∇_v c = a u − bv v
-      const a = 1 / uv;
-      const bu = c / U2;
-      const bv = c / V2;
-      const gu0 = a * vx - bu * ux;
-      const gu1 = a * vy - bu * uy;
-      const gu2 = a * vz - bu * uz;
-      const gv0 = a * ux - bv * vx;
-      const gv1 = a * uy - bv * vy;
-      const gv2 = a * uz - bv * vz;
-      const uu3 = 1 / (U2 * uv); // 1/(U³V)
-      const vv3 = 1 / (V2 * uv); // 1/(UV³)
-      const cu4 = (3 * c) / (U2 * U2);
-      const cv4 = (3 * c) / (V2 * V2);
-      const cuv = c / (U2 * V2);
-      for (let p = 0; p < 3; p++) {
-        const up = p === 0 ? ux : p === 1 ? uy : uz;
-        const vp = p === 0 ? vx : p === 1 ? vy : vz;
-        const gup = p === 0 ? gu0 : p === 1 ? gu1 : gu2;
-        const gvp = p === 0 ? gv0 : p === 1 ? gv1 : gv2;
-        for (let q = 0; q < 3; q++) {
-          const uq = q === 0 ? ux : q === 1 ? uy : uz;
-          const vq = q === 0 ? vx : q === 1 ? vy : vz;
-          const guq = q === 0 ? gu0 : q === 1 ? gu1 : gu2;
-          const gvq = q === 0 ? gv0 : q === 1 ? gv1 : gv2;
-          const id = p === q ? 1 : 0;
-          const huu = -(up * vq + vp * uq) * uu3 + cu4 * up * uq - (c * id) / U2;
-          const hvv = -(vp * uq + up * vq) * vv3 + cv4 * vp * vq - (c * id) / V2;
-          const huv = id * a - vp * vq * vv3 - up * uq * uu3 + cuv * up * vq;
-          inner[p * 6 + q] = kf * gup * guq + f * huu;
-          inner[(3 + p) * 6 + 3 + q] = kf * gvp * gvq + f * hvv;
-          inner[p * 6 + 3 + q] = kf * gup * gvq + f * huv;
-          inner[(3 + q) * 6 + p] = kf * gup * gvq + f * huv;
-        }
-      }
-      emit(sink, atoms, 3 * t);
-    }
+    cosinePolynomialHessian(x, table, sink, Cosine.Square);
   },
 };
+
+/**
+ * Cosine-series angle, E = c0 + c1 cos θ + c2 cos 2θ, params [c0, c1, c2]:
+ * with c = cos θ, E'(c) = c1 + 4 c2 c and E''(c) = 4 c2, so
+ * H = 4 c2 ∇c ∇cᵀ + (c1 + 4 c2 c) ∇²c (module comment). Smooth through 0°
+ * and 180°; coincident atoms give zero blocks.
+ */
+export const cosineSeriesAngleHessian: HessianKernel = {
+  slots: SLOTS,
+  accumulate(x: Float64Array, table: TermTable, sink: HessianSink): void {
+    cosinePolynomialHessian(x, table, sink, Cosine.Series);
+  },
+};
+
+/**
+ * Periodic angle, E = a [1 − sign · T_n(cos θ)], params [a, n, sign]: with
+ * c = cos θ, E'(c) = −a · sign · n U_{n−1}(c) and E''(c) = −a · sign · n U′_{n−1}(c),
+ * U′ from the differentiated recurrence U′_{m+1} = 2 U_m + 2c U′_m − U′_{m−1}
+ * (U′_0 = 0) beside the gradient kernel's T and U recurrences. A
+ * polynomial in cos θ: smooth through 0° and 180°, no 1/sin θ; coincident
+ * atoms give zero blocks.
+ */
+export const periodicAngleHessian: HessianKernel = {
+  slots: SLOTS,
+  accumulate(x: Float64Array, table: TermTable, sink: HessianSink): void {
+    cosinePolynomialHessian(x, table, sink, Cosine.Periodic);
+  },
+};
+
+/**
+ * The loop of the bends that are functions of c = cos θ:
+ * H = E''(c) ∇c ∇cᵀ + E'(c) ∇²c over (u, v), spread over the atoms, with
+ * c clamped to [−1, 1] as in the energy kernels.
+ */
+function cosinePolynomialHessian(x: Float64Array, table: TermTable, sink: HessianSink, form: Cosine): void {
+  const { atoms, params, count, width } = table;
+  for (let t = 0; t < count; t++) {
+    const i = 3 * atoms[3 * t];
+    const j = 3 * atoms[3 * t + 1];
+    const k3 = 3 * atoms[3 * t + 2];
+    const ux = x[i] - x[j];
+    const uy = x[i + 1] - x[j + 1];
+    const uz = x[i + 2] - x[j + 2];
+    const vx = x[k3] - x[j];
+    const vy = x[k3 + 1] - x[j + 1];
+    const vz = x[k3 + 2] - x[j + 2];
+    const U2 = ux * ux + uy * uy + uz * uz;
+    const V2 = vx * vx + vy * vy + vz * vz;
+    const uv = Math.sqrt(U2 * V2);
+    if (!(uv > 0)) {
+      inner.fill(0);
+      emit(sink, atoms, 3 * t);
+      continue;
+    }
+    let c = (ux * vx + uy * vy + uz * vz) / uv;
+    if (c > 1) c = 1;
+    else if (c < -1) c = -1;
+    const p0 = params[width * t];
+    const p1 = params[width * t + 1];
+    // f = E'(c), kf = E''(c)
+    let f: number;
+    let kf: number;
+    if (form === Cosine.Square) {
+      f = p0 * (c - p1);
+      kf = p0;
+    } else if (form === Cosine.Series) {
+      const p2 = params[width * t + 2];
+      f = p1 + 4 * p2 * c;
+      kf = 4 * p2;
+    } else {
+      const p2 = params[width * t + 2];
+      // U_{n−1}(c) and U′_{n−1}(c): U_{m+1} = 2c U_m − U_{m−1}, differentiated
+      let uPrev = 0;
+      let un = 1;
+      let dPrev = 0;
+      let dn = 0;
+      for (let m = 1; m < p1; m++) {
+        const uNext = 2 * c * un - uPrev;
+        const dNext = 2 * un + 2 * c * dn - dPrev;
+        uPrev = un;
+        un = uNext;
+        dPrev = dn;
+        dn = dNext;
+      }
+      f = -p0 * p2 * p1 * un;
+      kf = -p0 * p2 * p1 * dn;
+    }
+    // ∇_u c = a v − bu u, ∇_v c = a u − bv v
+    const a = 1 / uv;
+    const bu = c / U2;
+    const bv = c / V2;
+    const gu0 = a * vx - bu * ux;
+    const gu1 = a * vy - bu * uy;
+    const gu2 = a * vz - bu * uz;
+    const gv0 = a * ux - bv * vx;
+    const gv1 = a * uy - bv * vy;
+    const gv2 = a * uz - bv * vz;
+    const uu3 = 1 / (U2 * uv); // 1/(U³V)
+    const vv3 = 1 / (V2 * uv); // 1/(UV³)
+    const cu4 = (3 * c) / (U2 * U2);
+    const cv4 = (3 * c) / (V2 * V2);
+    const cuv = c / (U2 * V2);
+    for (let p = 0; p < 3; p++) {
+      const up = p === 0 ? ux : p === 1 ? uy : uz;
+      const vp = p === 0 ? vx : p === 1 ? vy : vz;
+      const gup = p === 0 ? gu0 : p === 1 ? gu1 : gu2;
+      const gvp = p === 0 ? gv0 : p === 1 ? gv1 : gv2;
+      for (let q = 0; q < 3; q++) {
+        const uq = q === 0 ? ux : q === 1 ? uy : uz;
+        const vq = q === 0 ? vx : q === 1 ? vy : vz;
+        const guq = q === 0 ? gu0 : q === 1 ? gu1 : gu2;
+        const gvq = q === 0 ? gv0 : q === 1 ? gv1 : gv2;
+        const id = p === q ? 1 : 0;
+        const huu = -(up * vq + vp * uq) * uu3 + cu4 * up * uq - (c * id) / U2;
+        const hvv = -(vp * uq + up * vq) * vv3 + cv4 * vp * vq - (c * id) / V2;
+        const huv = id * a - vp * vq * vv3 - up * uq * uu3 + cuv * up * vq;
+        inner[p * 6 + q] = kf * gup * guq + f * huu;
+        inner[(3 + p) * 6 + 3 + q] = kf * gvp * gvq + f * hvv;
+        inner[p * 6 + 3 + q] = kf * gup * gvq + f * huv;
+        inner[(3 + q) * 6 + p] = kf * gup * gvq + f * huv;
+      }
+    }
+    emit(sink, atoms, 3 * t);
+  }
+}

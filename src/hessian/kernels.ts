@@ -3,8 +3,14 @@
  * @module
  */
 import type { TermKind } from '../terms/table.js';
-import { cosineAngleHessian, harmonicAngleHessian } from './angle.js';
+import {
+  cosineAngleHessian,
+  cosineSeriesAngleHessian,
+  harmonicAngleHessian,
+  periodicAngleHessian,
+} from './angle.js';
 import { harmonicBondHessian, morseBondHessian, ureyBradleyHessian } from './bond.js';
+import { inversionHessian } from './inversion.js';
 import { distanceRestraintHessian, positionRestraintHessian } from './restraint.js';
 import type { HessianKernel } from './sink.js';
 import { harmonicImproperHessian, periodicDihedralHessian, ryckaertBellemansHessian } from './torsion.js';
@@ -21,4 +27,7 @@ export const HESSIAN_KERNELS: Readonly<Record<TermKind, HessianKernel>> = {
   'harmonic-improper': harmonicImproperHessian,
   'position-restraint': positionRestraintHessian,
   'distance-restraint': distanceRestraintHessian,
+  'cosine-series-angle': cosineSeriesAngleHessian,
+  'periodic-angle': periodicAngleHessian,
+  inversion: inversionHessian,
 };

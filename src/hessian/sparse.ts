@@ -7,10 +7,18 @@
  * which block it lands in; the numeric pass ({@link BlockSparseHessian.update})
  * runs the kernels at a geometry and writes the blocks' values through those
  * precomputed slots, without any search, in time linear in the number of terms.
+ *
+ * Nonbonded pairs, when given, are not in the block pattern: with a cutoff
+ * their set depends on the geometry, and without one they would make the
+ * pattern dense. They are kept beside it as a list of pair blocks
+ * ({@link NonbondedPairHessian}), found again at every update, and added in
+ * products and in `toDense`.
  * @module
  */
+import type { NonbondedPairs } from '../terms/nonbonded.js';
 import type { TermTable } from '../terms/table.js';
 import { HESSIAN_KERNELS } from './kernels.js';
+import { NonbondedPairHessian } from './nonbonded.js';
 import type { HessianSink } from './sink.js';
 
 /** Writes each block a kernel hands over into its precomputed slot (or skips it). */
@@ -47,6 +55,11 @@ class SlotSink implements HessianSink {
  * The pattern is fixed by the tables' atoms when constructed; call
  * {@link update} for each geometry. The tables are kept by reference: change
  * their parameters freely, but not their atoms (build a new one instead).
+ *
+ * With a nonbonded pair set, the blocks above hold the bonded terms only;
+ * the pairs counted at the last update's geometry are in {@link nonbonded}
+ * (their number changes with the geometry when there is a cutoff), and
+ * {@link multiply} and {@link toDense} give the whole Hessian.
  */
 export class BlockSparseHessian {
   /** Number of atoms N; vectors have length 3N. */
@@ -57,6 +70,8 @@ export class BlockSparseHessian {
   readonly columns: Int32Array;
   /** Block values, 9 per block, row-major within the block. */
   readonly values: Float64Array;
+  /** The nonbonded pair blocks (at the last update's geometry), or null without a pair set. */
+  readonly nonbonded: NonbondedPairHessian | null;
 
   readonly #tables: readonly TermTable[];
   readonly #slots: Int32Array;
@@ -66,14 +81,21 @@ export class BlockSparseHessian {
   /**
    * Symbolic pass: the pattern of the Hessian of the sum of `tables` over
    * `atomCount` atoms (values zero until {@link update}). O(terms · log).
+   * With `nonbonded` (a pair set over the same atoms, e.g. `model.nonbonded`)
+   * its pair blocks are added too, from a pair list (see {@link nonbonded}).
    *
    * @throws RangeError naming the place (`tables[1].atoms[7]: index 12 is out
-   *   of range (3 atoms)`) if an atom index is not an integer in [0, atomCount).
+   *   of range (3 atoms)`) if an atom index is not an integer in [0, atomCount),
+   *   or if `nonbonded` is over a different number of atoms.
    */
-  constructor(tables: readonly TermTable[], atomCount: number) {
+  constructor(tables: readonly TermTable[], atomCount: number, nonbonded?: NonbondedPairs | null) {
     if (!Number.isInteger(atomCount) || atomCount < 0) {
       throw new RangeError(`atomCount: expected an integer ≥ 0, got ${String(atomCount)}`);
     }
+    if (nonbonded != null && nonbonded.atomCount !== atomCount) {
+      throw new RangeError(`nonbonded: its pair set has ${nonbonded.atomCount} atoms, expected ${atomCount}`);
+    }
+    this.nonbonded = nonbonded == null ? null : new NonbondedPairHessian(nonbonded);
     this.atomCount = atomCount;
     this.#tables = tables;
     const count = new Int32Array(atomCount + 1);
@@ -152,7 +174,9 @@ export class BlockSparseHessian {
   /**
    * Numeric pass: overwrites {@link values} with the Hessian at `x` (flat,
    * 3N, the tables' length unit). Linear in the number of terms, no
-   * allocation. Returns `this`.
+   * allocation; with a nonbonded pair set, also finds its pair blocks at `x`
+   * (O(N²) distance tests; its pair arrays grow only when more pairs than
+   * ever before are within the cutoff). Returns `this`.
    *
    * @throws RangeError if `x.length` is not 3N.
    */
@@ -171,6 +195,7 @@ export class BlockSparseHessian {
     if (sink.cursor !== this.#slots.length) {
       throw new Error('internal: a Hessian kernel broke its block order contract');
     }
+    this.nonbonded?.update(x);
     return this;
   }
 
@@ -218,6 +243,7 @@ export class BlockSparseHessian {
       y[ia + 1] += y1;
       y[ia + 2] += y2;
     }
+    this.nonbonded?.multiplyAdd(v, y);
     if (y !== result) result.set(y);
     return result;
   }
@@ -248,6 +274,7 @@ export class BlockSparseHessian {
         }
       }
     }
+    this.nonbonded?.addToDense(m, size);
     return m;
   }
 }

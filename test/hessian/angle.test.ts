@@ -1,10 +1,14 @@
 /**
  * Bend-angle Hessians of src/hessian/angle.ts near and at 0° and 180°,
- * where ∇²θ grows like 1/sin θ, and their exact values on the line.
+ * where ∇²θ grows like 1/sin θ, and their exact values on the line; the
+ * cosine-series and periodic angles (polynomials in cos θ) through the line
+ * and at their minima.
  */
 import { describe, expect, it } from 'vitest';
 import { applyMotion, randomRigidMotion, rad, triangle } from '../helpers/geometry.js';
 import { createRandom } from '../helpers/random.js';
+import { cosineSeriesCoefficients } from '../../src/model/compile.js';
+import { PARAMS } from '../helpers/cases.js';
 import { report, singleTerm } from '../helpers/terms.js';
 import { analytic, maxAbs, numericHessian, relativeError, scaledError, symmetricEigenvalues } from './support.js';
 
@@ -113,5 +117,64 @@ describe('cosine-angle on the line', () => {
       const table = singleTerm('cosine-angle', [90, Math.cos(rad(115))]);
       expect(scaledError(analytic(table, x), numericHessian(table, x, 1e-5))).toBeLessThanOrEqual(1e-9);
     }
+  });
+});
+
+describe.each(['cosine-series-angle', 'periodic-angle'] as const)('%s through the line (a polynomial in cos θ)', (kind) => {
+  // Smooth at 0° and 180°: the Hessian varies on the scale of r, so the usual step 1e-4 serves
+  // (as for the cosine angle above); accepted 1e-8 as in kernels.test.ts (2e-8 there).
+  for (const theta of [rad(180), Math.PI - 1e-3, Math.PI - 1e-2, 1e-2, 1e-3, 0]) {
+    it(`matches differences of the gradient at θ = π·${(theta / Math.PI).toFixed(5)} (100 random cases)`, () => {
+      const rng = createRandom(kind === 'cosine-series-angle' ? 8300 : 8400);
+      let worst = 0;
+      for (let c = 0; c < 100; c++) {
+        const params = PARAMS[kind](rng);
+        const x = applyMotion(triangle(rng.uniform(0.8, 2), rng.uniform(0.8, 2), theta), randomRigidMotion(rng));
+        const table = singleTerm(kind, params);
+        const h = analytic(table, x);
+        expect(h.every(Number.isFinite)).toBe(true);
+        const error = relativeError(h, numericHessian(table, x, 1e-4));
+        worst = Math.max(worst, error);
+        expect(error, `case ${c}: params [${params}]`).toBeLessThanOrEqual(1e-8);
+      }
+      report(`${kind} at θ = ${theta}: worst error`, worst);
+    });
+  }
+
+  it('coincident atoms give zero blocks', () => {
+    const x = new Float64Array([0, 0, 0, 0, 0, 0, 1, 0, 0]);
+    expect(maxAbs(analytic(singleTerm(kind, kind === 'periodic-angle' ? [30, 3, 1] : [10, 20, 5]), x))).toBe(0);
+  });
+});
+
+describe('polynomial bends at their minima equal the harmonic angle with the same k and θ0', () => {
+  // At θ = θ0, E′ = 0 and E″(θ0) = k for the cosine series with c_m = k C_m (C2 = 1/(4 sin²θ0),
+  // C1 = −4 C2 cos θ0: E″ = 4 k C2 sin²θ0 = k, derived from the layout in src/terms/table.ts)
+  // and for the periodic angle with a = k/n², sign = cos(n θ0) (E″ = a n² sign cos(n θ0) = k);
+  // so both Hessians are k ∇θ ∇θᵀ, the harmonic angle's at its minimum.
+  const cases: [string, number, number[]][] = [
+    ['cosine series, θ0 = 109.5°', 109.5, cosineSeriesCoefficients(109.5).map((c) => 90 * c)],
+    ['cosine series, θ0 = 60°', 60, cosineSeriesCoefficients(60).map((c) => 90 * c)],
+    ['periodic n = 3, θ0 = 120°', 120, [90 / 9, 3, 1]],
+    ['periodic n = 4, θ0 = 90°', 90, [90 / 16, 4, 1]],
+    ['periodic n = 2, θ0 = 90° (sign −1)', 90, [90 / 4, 2, -1]],
+  ];
+  for (const [label, theta0, params] of cases) {
+    it(label, () => {
+      const kind = label.startsWith('cosine') ? 'cosine-series-angle' : 'periodic-angle';
+      const rng = createRandom(8500);
+      const x = applyMotion(triangle(1.1, 1.4, rad(theta0)), randomRigidMotion(rng));
+      const h = analytic(singleTerm(kind, params), x);
+      const reference = analytic(singleTerm('harmonic-angle', [90, rad(theta0)]), x);
+      expect(scaledError(h, reference)).toBeLessThan(1e-12);
+    });
+  }
+
+  it('periodic n = 1 (θ0 = 180°) exactly on the line equals the harmonic angle with θ0 = 180° there', () => {
+    // a [1 + cos θ] = ½ a (π − θ)² + O((π − θ)⁴): the same second-order form k P ⊗ [[1/U², 1/UV], [1/UV, 1/V²]]
+    const x = new Float64Array([1.1, 0, 0, 0, 0, 0, -1.7, 0, 0]);
+    const h = analytic(singleTerm('periodic-angle', [80, 1, -1]), x);
+    const reference = analytic(singleTerm('harmonic-angle', [80, Math.PI]), x);
+    expect(scaledError(h, reference)).toBeLessThan(1e-14);
   });
 });

@@ -1,5 +1,5 @@
 /**
- * Properties every Hessian kernel of src/hessian/ has, run for all ten kinds:
+ * Properties every Hessian kernel of src/hessian/ has, run for every kind (TERM_KINDS):
  * agreement with central differences of the kind's analytic GRADIENT kernel
  * (src/terms/) on random realistic cases, exact symmetry, the block order
  * the sinks rely on, translation and rotation invariance, and a many-term
