@@ -10,6 +10,8 @@ export interface MoleculeLikeSpec {
   shake?: number;
   /** Restrain every pair ≥ 3 bonds apart (default: when ≤ 400 atoms); else only pairs within 7 Å at the start. */
   allPairs?: boolean;
+  /** Lennard-Jones pairs (10 Å cutoff) instead of the repulsive restraints. */
+  lennardJones?: boolean;
 }
 /** A model-file object (kcal/mol, Å) of a branched hydrocarbon-like test molecule. */
 export function moleculeLikeModel(spec: MoleculeLikeSpec): {
@@ -20,4 +22,6 @@ export function moleculeLikeModel(spec: MoleculeLikeSpec): {
   atoms: { element: string }[];
   coordinates: [number, number, number][];
   terms: Record<string, unknown>[];
+  bonds?: [number, number][];
+  nonbonded?: Record<string, unknown>;
 };

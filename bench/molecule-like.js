@@ -46,12 +46,13 @@ function cross(a, b) {
 
 /**
  * Build a model file object.
- * @param {{carbons: number, seed: number, branching?: number, shake?: number, allPairs?: boolean}} spec
+ * @param {{carbons: number, seed: number, branching?: number, shake?: number, allPairs?: boolean, lennardJones?: boolean}} spec
  *   carbons: heavy atoms (about 3× as many atoms in all); branching: chance
  *   that a carbon gets a second carbon child (default 0.25); shake: largest
  *   random displacement per coordinate in Å (default 0.15); allPairs: restrain
  *   every pair at least three bonds apart (default: when ≤ 400 atoms),
- *   otherwise only those within 7 Å at the start.
+ *   otherwise only those within 7 Å at the start; lennardJones: Lennard-Jones
+ *   pairs with a 10 Å cutoff instead of the repulsive restraints.
  */
 export function moleculeLikeModel(spec) {
   const rand = seeded(spec.seed);
@@ -193,6 +194,31 @@ export function moleculeLikeModel(spec) {
       }
     }
   }
+  const file = {
+    format: 'strainwise-model',
+    version: 1,
+    title: `molecule-like test model: ${spec.carbons} carbons, seed ${spec.seed}`,
+    units: { length: 'angstrom', energy: 'kcal/mol' },
+    atoms: elements.map((element) => ({ element })),
+    coordinates: xyz,
+    terms,
+  };
+  if (spec.lennardJones) {
+    // Lennard-Jones pairs instead of the repulsive restraints (round values of our own: rmin C 3.8 Å,
+    // H 2.9 Å; ε C 0.1, H 0.04 kcal/mol), 1-2 and 1-3 pairs left out, a 10 Å shifted cutoff.
+    file.title += ', Lennard-Jones pairs';
+    file.bonds = bonds.map(([a, b]) => [a, b]);
+    file.nonbonded = {
+      lennardJones: {
+        rmin: elements.map((e) => (e === 'C' ? 3.8 : 2.9)),
+        epsilon: elements.map((e) => (e === 'C' ? 0.1 : 0.04)),
+        combination: 'lorentz-berthelot',
+      },
+      exclusions: { bondSeparation: 2, scale14: { lennardJones: 0.5, coulomb: 1 } },
+      cutoff: 10,
+    };
+    return file;
+  }
   // bond separation up to 2 by breadth-first search from every atom
   const allPairs = spec.allPairs ?? n <= 400;
   const near = new Uint8Array(n);
@@ -212,13 +238,5 @@ export function moleculeLikeModel(spec) {
     }
     for (const a of marked) near[a] = 0;
   }
-  return {
-    format: 'strainwise-model',
-    version: 1,
-    title: `molecule-like test model: ${spec.carbons} carbons, seed ${spec.seed}`,
-    units: { length: 'angstrom', energy: 'kcal/mol' },
-    atoms: elements.map((element) => ({ element })),
-    coordinates: xyz,
-    terms,
-  };
+  return file;
 }
