@@ -142,3 +142,4 @@ export { readSdf, readMol, writeSdf, writeMol, writeSdfRecords } from './io/sdf.
 export { readXyz, writeXyz, writeXyzFrames } from './io/xyz.js';
 export { STRUCTURE_FORMATS, structureFormatFor } from './io/structure-format.js';
 export type { StructureFormat } from './io/structure-format.js';
+export { BlockCholesky } from './linalg/block-cholesky.js';
