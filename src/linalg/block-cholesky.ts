@@ -117,7 +117,7 @@ export class BlockCholesky {
   /**
    * Factor the matrix given by its diagonal blocks (`9 × N`, block a at
    * `9a`, row-major) and the off-diagonal blocks `offDiagonal` (9 per pair,
-   * block (i, j) of pair (i, j) as given to {@link pairBlocks}'s order).
+   * block (i, j) of pair q = (pairs[2q], pairs[2q+1]), row i, column j).
    * @returns false when a pivot is not positive definite (the matrix is not
    *   SPD to working precision); the factor is then unusable.
    */

@@ -61,17 +61,17 @@ export interface KindLayout {
  * file gives degrees), or their cosine and sine where the kernel needs only
  * those; everything else is as in the file.
  *
- * - `harmonic-bond` [k, r0]: E = ½ k (r − r0)²
- * - `morse-bond` [D, a, r0]: E = D [1 − exp(−a (r − r0))]²
- * - `harmonic-angle` [k, theta0]: E = ½ k (θ − θ0)²
- * - `cosine-angle` [k, cosTheta0]: E = ½ k (cos θ − cos θ0)²
- * - `urey-bradley` [k, s0]: E = ½ k (|x_k − x_i| − s0)² (middle atom unused)
- * - `periodic-dihedral` [k, n, cosPhase, sinPhase]: E = k [1 + cos(n φ − phase)]
+ * - `harmonic-bond` `[k, r0]`: E = ½ k (r − r0)²
+ * - `morse-bond` `[D, a, r0]`: E = D [1 − exp(−a (r − r0))]²
+ * - `harmonic-angle` `[k, theta0]`: E = ½ k (θ − θ0)²
+ * - `cosine-angle` `[k, cosTheta0]`: E = ½ k (cos θ − cos θ0)²
+ * - `urey-bradley` `[k, s0]`: E = ½ k (|x_k − x_i| − s0)² (middle atom unused)
+ * - `periodic-dihedral` `[k, n, cosPhase, sinPhase]`: E = k [1 + cos(n φ − phase)]
  *   (the phase kept as its cosine and sine, so the kernel needs no trigonometry)
- * - `ryckaert-bellemans` [c0..c5]: E = Σ_m c_m cos^m(φ − π)
- * - `harmonic-improper` [k, xi0]: E = ½ k Δ², Δ = φ − ξ0 wrapped into [−π, π)
- * - `position-restraint` [k, x0, y0, z0, flat]: E = ½ k max(0, |x_i − x0| − flat)²
- * - `distance-restraint` [k, lower, upper]: E = ½ k (lower − r)² below, ½ k (r − upper)² above, 0 between
+ * - `ryckaert-bellemans` `[c0..c5]`: E = Σ_m c_m cos^m(φ − π)
+ * - `harmonic-improper` `[k, xi0]`: E = ½ k Δ², Δ = φ − ξ0 wrapped into [−π, π)
+ * - `position-restraint` `[k, x0, y0, z0, flat]`: E = ½ k max(0, |x_i − x0| − flat)²
+ * - `distance-restraint` `[k, lower, upper]`: E = ½ k (lower − r)² below, ½ k (r − upper)² above, 0 between
  * - `cosine-series-angle` [c0, c1, c2] (energies): E = c0 + c1 cos θ + c2 cos 2θ
  *   (the file's k and θ0 become c_m = k C_m, see `writeParameters`)
  * - `periodic-angle` [a, n, sign] : E = a [1 − sign · cos(n θ)], a = k/n², sign = cos(n θ0) = ±1
