@@ -4,7 +4,8 @@
  * implicit QL method with Wilkinson shifts (./tridiagonal-ql.ts).
  * @module
  */
-import { reflectorsTransposed, tridiagonalize } from './tridiagonal.js';
+import { applyReflectorsToRows, reflectorsTransposed, tridiagonalize } from './tridiagonal.js';
+import { tridiagonalEigenvectors } from './tridiagonal-vectors.js';
 import { QL_SWEEPS_PER_EIGENVALUE, tridiagonalQL } from './tridiagonal-ql.js';
 
 /** The eigen-decomposition of a symmetric n×n matrix A = V diag(values) Vᵀ. */
@@ -68,8 +69,17 @@ export function symmetricEigen(matrix: Float64Array, n?: number, options: Symmet
   const d = new Float64Array(size);
   const e = new Float64Array(size);
   const beta = new Float64Array(size);
-  const scratch = new Float64Array(size);
+  const scratch = new Float64Array(2 * size);
   tridiagonalize(a, size, d, e, beta, scratch);
+  if (wantVectors && size > 2) {
+    // Fast path: eigenvalues of T, eigenvectors of T by inverse iteration, then back to A.
+    const tValues = new Float64Array(size);
+    const tRows = new Float64Array(size * size);
+    if (tridiagonalEigenvectors(d, e, size, tValues, tRows)) {
+      applyReflectorsToRows(a, size, beta, tRows, size);
+      return sortedPairs(tValues, tRows, size, 0);
+    }
+  }
   let rows: Float64Array | undefined;
   if (wantVectors) {
     rows = new Float64Array(size * size);
@@ -89,7 +99,11 @@ export function symmetricEigen(matrix: Float64Array, n?: number, options: Symmet
       `symmetricEigen: eigenvalue ${-1 - sweeps} of ${size} did not converge within ${QL_SWEEPS_PER_EIGENVALUE} QL sweeps`,
     );
   }
-  // Sort ascending, permuting the rows with the values.
+  return sortedPairs(d, rows, size, sweeps);
+}
+
+/** Values ascending, with the rows of `rows` (when given) permuted alike. */
+function sortedPairs(d: Float64Array, rows: Float64Array | undefined, size: number, sweeps: number): SymmetricEigen {
   const order = Array.from({ length: size }, (_, i) => i).sort((p, q) => d[p] - d[q]);
   const values = Float64Array.from(order, (i) => d[i]);
   let vectors = new Float64Array(0);
