@@ -38,16 +38,18 @@ const EXTRA_ITERATIONS = 2;
  * unreduced block but not overall; `rows` (row-major n×n) ← row r the unit
  * eigenvector of T for `values[r]`.
  *
- * @returns true, or false when an eigenvalue did not converge in QL or an
- *   eigenvector did not converge in inverse iteration (or met a non-finite
- *   number); then `values` and `rows` are unspecified and the caller falls
- *   back to QL with vectors. Allocates O(n) scratch, never throws.
+ * @returns the number of QL sweeps spent on the eigenvalues, or −1 when an
+ *   eigenvalue did not converge in QL or an eigenvector did not converge in
+ *   inverse iteration (or met a non-finite number); then `values` and
+ *   `rows` are unspecified and the caller falls back to QL with vectors.
+ *   Allocates O(n) scratch, never throws.
  */
-export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: number, values: Float64Array, rows: Float64Array): boolean {
+export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: number, values: Float64Array, rows: Float64Array): number {
   rows.fill(0);
   const work = new Float64Array(8 * n + 2);
   const pivots = new Uint8Array(n);
   let seed = 0x2545f491;
+  let sweeps = 0;
   let start = 0;
   while (start < n) {
     let end = start;
@@ -65,7 +67,9 @@ export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: num
     const be = work.subarray(0, m);
     be.set(e.subarray(start, end));
     be[m - 1] = 0;
-    if (tridiagonalQL(bd, be, m) < 0) return false;
+    const used = tridiagonalQL(bd, be, m);
+    if (used < 0) return -1;
+    sweeps += used;
     bd.sort();
     let norm = 0; // ‖T_block‖₁
     for (let i = start; i <= end; i++) {
@@ -97,19 +101,19 @@ export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: num
       for (let it = 0; ; it++) {
         solve(m, u0, u1, u2, mult, pivots, x);
         const grown = orthogonalize(x, m, rows, n, start, clusterStart, j);
-        if (!(grown > 0) || !Number.isFinite(grown)) return false;
+        if (!(grown > 0) || !Number.isFinite(grown)) return -1;
         // x had ‖·‖₂ = 1 before the solve: the residual of x/‖x‖ is about 1/grown.
         const scale = 1 / grown;
         for (let i = 0; i < m; i++) x[i] *= scale;
         if (passed < 0 && scale <= accept) passed = it;
         if (passed >= 0 && it - passed >= EXTRA_ITERATIONS) break;
-        if (passed < 0 && it + 1 >= MAX_ITERATIONS) return false;
+        if (passed < 0 && it + 1 >= MAX_ITERATIONS) return -1;
       }
       rows.set(x, (start + j) * n + start);
     }
     start = end + 1;
   }
-  return true;
+  return sweeps;
 }
 
 /** x ← x / ‖x‖₂. */
