@@ -79,22 +79,48 @@ export function tridiagonalize(
     // p = b A22 v, from the upper triangle of the trailing block (updated on the way when pending).
     for (let i = start; i < n; i++) p[i] = 0;
     if (pending) {
+      // Two rows per pass: the vectors' entries are loaded once for both.
       const prev = row - n;
-      for (let i = start; i < n; i++) {
+      let i = start;
+      for (; i + 1 < n; i += 2) {
         const ri = i * n;
+        const rk = ri + n;
+        const i1 = i + 1;
         const ui = a[prev + i];
         const wi = w[i];
         const vi = a[row + i];
-        const aii = a[ri + i] - (ui * w[i] + wi * ui);
+        const uk = a[prev + i1];
+        const wk = w[i1];
+        const vk = a[row + i1];
+        const aii = a[ri + i] - 2 * ui * wi;
         a[ri + i] = aii;
-        let s = aii * vi;
-        for (let j = i + 1; j < n; j++) {
-          const aij = a[ri + j] - (ui * w[j] + wi * a[prev + j]);
-          a[ri + j] = aij;
-          s += aij * a[row + j];
-          p[j] += aij * vi;
+        const aik = a[ri + i1] - (ui * wk + wi * uk);
+        a[ri + i1] = aik;
+        const akk = a[rk + i1] - 2 * uk * wk;
+        a[rk + i1] = akk;
+        let si = aii * vi + aik * vk;
+        let sk = aik * vi + akk * vk;
+        for (let j = i + 2; j < n; j++) {
+          const uj = a[prev + j];
+          const wj = w[j];
+          const vj = a[row + j];
+          const x = a[ri + j] - (ui * wj + wi * uj);
+          const y = a[rk + j] - (uk * wj + wk * uj);
+          a[ri + j] = x;
+          a[rk + j] = y;
+          si += x * vj;
+          sk += y * vj;
+          p[j] += x * vi + y * vk;
         }
-        p[i] += s;
+        p[i] += si;
+        p[i1] += sk;
+      }
+      if (i < n) {
+        // The last row alone: only its diagonal entry.
+        const ri = i * n;
+        const aii = a[ri + i] - 2 * a[prev + i] * w[i];
+        a[ri + i] = aii;
+        p[i] += aii * a[row + i];
       }
     } else {
       for (let i = start; i < n; i++) {
@@ -172,7 +198,7 @@ export function reflectorsTransposed(a: Float64Array, n: number, beta: Float64Ar
  * held as reflectors in `a` and `beta` by {@link tridiagonalize}; an
  * eigenvector of T becomes one of A. The reflectors are applied
  * H_{n−2} first, each as z ← z − β (vᵀz) v along contiguous rows: two
- * reflectors and two rows per pass (the second reflector's product is
+ * reflectors and four rows per pass (the second reflector's product is
  * corrected by β_k vᵀ_{k−1} v_k, computed once), over a tile of rows at a
  * time so that the tile stays in cache while the reflectors stream past it
  * (about 2 n² · count operations). Never allocates, never throws.
@@ -211,6 +237,58 @@ function reflectorPair(
   if (bk !== 0) for (let j = start; j < n; j++) cross += a[vl + j] * a[vk + j];
   const head = a[vl + k];
   let r = first;
+  if (bk !== 0) {
+    for (; r + 3 < last; r += 4) {
+      const z0 = r * n;
+      const z1 = z0 + n;
+      const z2 = z1 + n;
+      const z3 = z2 + n;
+      let p0 = 0;
+      let p1 = 0;
+      let p2 = 0;
+      let p3 = 0;
+      let q0 = rows[z0 + k] * head;
+      let q1 = rows[z1 + k] * head;
+      let q2 = rows[z2 + k] * head;
+      let q3 = rows[z3 + k] * head;
+      for (let j = start; j < n; j++) {
+        const x = a[vk + j];
+        const y = a[vl + j];
+        const w0 = rows[z0 + j];
+        const w1 = rows[z1 + j];
+        const w2 = rows[z2 + j];
+        const w3 = rows[z3 + j];
+        p0 += w0 * x;
+        q0 += w0 * y;
+        p1 += w1 * x;
+        q1 += w1 * y;
+        p2 += w2 * x;
+        q2 += w2 * y;
+        p3 += w3 * x;
+        q3 += w3 * y;
+      }
+      const s0 = bk * p0;
+      const s1 = bk * p1;
+      const s2 = bk * p2;
+      const s3 = bk * p3;
+      const t0 = bl * (q0 - s0 * cross);
+      const t1 = bl * (q1 - s1 * cross);
+      const t2 = bl * (q2 - s2 * cross);
+      const t3 = bl * (q3 - s3 * cross);
+      rows[z0 + k] -= t0 * head;
+      rows[z1 + k] -= t1 * head;
+      rows[z2 + k] -= t2 * head;
+      rows[z3 + k] -= t3 * head;
+      for (let j = start; j < n; j++) {
+        const x = a[vk + j];
+        const y = a[vl + j];
+        rows[z0 + j] -= s0 * x + t0 * y;
+        rows[z1 + j] -= s1 * x + t1 * y;
+        rows[z2 + j] -= s2 * x + t2 * y;
+        rows[z3 + j] -= s3 * x + t3 * y;
+      }
+    }
+  }
   for (; r + 1 < last; r += 2) {
     const z0 = r * n;
     const z1 = z0 + n;
