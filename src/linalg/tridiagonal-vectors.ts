@@ -7,7 +7,9 @@
  * Computations, 4th ed. 2013, §8.2.2 and §8.4), written anew. The matrix
  * is first split where an off-diagonal is negligible
  * (|e[i]| ≤ ε (|d[i]| + |d[i+1]|), the QL test; setting it to zero changes
- * T by at most ε‖T‖). In each unreduced block, the eigenvalues (from QL
+ * T by at most ε‖T‖). Each unreduced block is scaled by a power of two to
+ * a 1-norm near 1 (exactly, so that no solve can overflow or underflow);
+ * in it, the eigenvalues (from QL
  * without vectors) are taken in ascending order; those closer than
  * 10⁻³ ‖T_block‖₁ to the previous one join its cluster. For each eigenvalue
  * λ, T − σI (σ = λ, nudged by 10 ε |λ| above the previous shift when two
@@ -61,21 +63,34 @@ export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: num
       start = end + 1;
       continue;
     }
-    // Eigenvalues of the block, ascending.
+    // The block scaled by a power of two to ‖·‖₁ ≈ 1 (exact), so that the solves can neither overflow nor underflow.
+    let blockNorm = 0; // ‖T_block‖₁
+    for (let i = start; i <= end; i++) {
+      const s = Math.abs(d[i]) + (i > start ? Math.abs(e[i - 1]) : 0) + (i < end ? Math.abs(e[i]) : 0);
+      if (s > blockNorm) blockNorm = s;
+    }
+    const scale = 2 ** -Math.round(Math.log2(blockNorm));
+    if (!(scale > 0 && scale < Infinity && 1 / scale < Infinity)) return -1;
+    const sd = work.subarray(6 * m, 7 * m);
+    const se = work.subarray(7 * m, 8 * m);
+    for (let i = 0; i < m; i++) {
+      sd[i] = d[start + i] * scale;
+      se[i] = i < m - 1 ? e[start + i] * scale : 0;
+    }
+    let norm = 0;
+    for (let i = 0; i < m; i++) {
+      const s = Math.abs(sd[i]) + (i > 0 ? Math.abs(se[i - 1]) : 0) + Math.abs(se[i]);
+      if (s > norm) norm = s;
+    }
+    // Eigenvalues of the (scaled) block, ascending.
     const bd = values.subarray(start, end + 1);
-    bd.set(d.subarray(start, end + 1));
+    bd.set(sd);
     const be = work.subarray(0, m);
-    be.set(e.subarray(start, end));
-    be[m - 1] = 0;
+    be.set(se);
     const used = tridiagonalQL(bd, be, m);
     if (used < 0) return -1;
     sweeps += used;
     bd.sort();
-    let norm = 0; // ‖T_block‖₁
-    for (let i = start; i <= end; i++) {
-      const s = Math.abs(d[i]) + (i > start ? Math.abs(e[i - 1]) : 0) + (i < end ? Math.abs(e[i]) : 0);
-      if (s > norm) norm = s;
-    }
     const clusterGap = 1e-3 * norm;
     const accept = Math.sqrt(10) * m * Math.sqrt(m) * EPSILON * norm;
     const tiny = EPSILON * norm;
@@ -91,7 +106,7 @@ export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: num
       if (j > 0 && lambda - bd[j - 1] > clusterGap) clusterStart = j;
       if (j === 0 || j === clusterStart) shift = lambda;
       else shift = Math.max(lambda, shift + 10 * EPSILON * Math.max(Math.abs(lambda), tiny));
-      factor(d, e, start, m, shift, tiny, u0, u1, u2, mult, pivots);
+      factor(sd, se, 0, m, shift, tiny, u0, u1, u2, mult, pivots);
       for (let i = 0; i < m; i++) {
         seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
         x[i] = seed / 4294967296 - 0.5;
@@ -111,6 +126,7 @@ export function tridiagonalEigenvectors(d: Float64Array, e: Float64Array, n: num
       }
       rows.set(x, (start + j) * n + start);
     }
+    for (let j = 0; j < m; j++) bd[j] /= scale;
     start = end + 1;
   }
   return sweeps;

@@ -66,6 +66,18 @@ describe('tridiagonalEigenvectors', () => {
     );
   });
 
+  it('W21+ scaled by 1e-200 and by 1e200: the same accuracy relative to ‖T‖ (the blocks are scaled inside)', () => {
+    for (const f of [1e-200, 1e200]) {
+      const d = Float64Array.from({ length: 21 }, (_, i) => f * Math.abs(10 - i));
+      const e = new Float64Array(21).fill(f);
+      const t = check(d, e);
+      expect(t.ok).toBe(true);
+      expect(t.residual).toBeLessThan(1e-14);
+      expect(t.orthogonality).toBeLessThan(1e-13);
+      expect(Math.abs(sorted(t.values)[20] / f - 10.746194182903393)).toBeLessThan(1e-13); // numpy, as above
+    }
+  });
+
   it('a matrix that splits into identical blocks (exactly equal eigenvalues in different blocks)', () => {
     // Three copies of tridiag(1, 2, 1) of order 7 joined by zero off-diagonals.
     const n = 21;
