@@ -167,8 +167,8 @@ function orthogonalize(x: Float64Array, m: number, rows: Float64Array, n: number
 
 /**
  * LU factorization with partial pivoting of T − σI for the block of T
- * starting at `offset` (size m): U has diagonals u0 (main), u1, u2 (first
- * and second above), `mult` the multipliers, `pivots[k]` = 1 when rows k and
+ * starting at `offset` (size m): U has diagonals u0 (the reciprocals of the
+ * main diagonal, so that the solves multiply), u1, u2 (first and second above), `mult` the multipliers, `pivots[k]` = 1 when rows k and
  * k+1 were interchanged. Pivots smaller than `tiny` in magnitude are
  * replaced by ±tiny (the perturbation of dstein's solver).
  */
@@ -196,7 +196,7 @@ function factor(
       const pivot = Math.abs(diag) < tiny ? (diag < 0 ? -tiny : tiny) : diag;
       const l = sub / pivot;
       mult[k] = l;
-      u0[k] = pivot;
+      u0[k] = 1 / pivot;
       u1[k] = sup;
       u2[k] = 0;
       diag = next - l * sup;
@@ -205,14 +205,14 @@ function factor(
       pivots[k] = 1;
       const l = diag / sub;
       mult[k] = l;
-      u0[k] = sub;
+      u0[k] = 1 / sub;
       u1[k] = next;
       u2[k] = nextSup;
       diag = sup - l * next;
       sup = -l * nextSup;
     }
   }
-  u0[m - 1] = Math.abs(diag) < tiny ? (diag < 0 ? -tiny : tiny) : diag;
+  u0[m - 1] = 1 / (Math.abs(diag) < tiny ? (diag < 0 ? -tiny : tiny) : diag);
   u1[m - 1] = 0;
   u2[m - 1] = 0;
 }
@@ -236,7 +236,7 @@ function solve(
       x[k + 1] -= mult[k] * x[k];
     }
   }
-  x[m - 1] /= u0[m - 1];
-  if (m > 1) x[m - 2] = (x[m - 2] - u1[m - 2] * x[m - 1]) / u0[m - 2];
-  for (let k = m - 3; k >= 0; k--) x[k] = (x[k] - u1[k] * x[k + 1] - u2[k] * x[k + 2]) / u0[k];
+  x[m - 1] *= u0[m - 1];
+  if (m > 1) x[m - 2] = (x[m - 2] - u1[m - 2] * x[m - 1]) * u0[m - 2];
+  for (let k = m - 3; k >= 0; k--) x[k] = (x[k] - u1[k] * x[k + 1] - u2[k] * x[k + 2]) * u0[k];
 }

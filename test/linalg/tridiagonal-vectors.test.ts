@@ -128,8 +128,10 @@ describe('tridiagonalEigenvectors', () => {
     const ec = Float64Array.from({ length: n }, (_, i) => ((i + 1) % 4 === 0 ? 1e-12 : 1));
     const c = check(dc, ec);
     expect(c.ok).toBe(true);
-    // Within a cluster of k equal eigenvalues the shifts are spread over k · 10 ε |λ|, so the bound is looser.
-    expect(c.residual).toBeLessThan(1e-13);
+    // The 100 eigenvalues of each group lie within about 1e-12 of each other, closer than the
+    // shifts can tell apart (they step by 10 ε |λ| when two coincide), so a vector is exact only
+    // up to the group's span: its residual is bounded by the group's width, not by ε‖T‖.
+    expect(c.residual).toBeLessThan(1e-12);
     expect(c.orthogonality).toBeLessThan(1e-12);
   });
 
