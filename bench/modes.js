@@ -5,7 +5,7 @@
 // For a baseline, when `python3 -c "import numpy"` works, the same matrix is diagonalized by
 // numpy.linalg.eigh (LAPACK dsyevd through numpy's BLAS/LAPACK), on one thread
 // (OPENBLAS_NUM_THREADS = OMP_NUM_THREADS = MKL_NUM_THREADS = 1) so that it is compared with our
-// one thread. Times are the best of a few runs (one run from 1000 up); nothing is asserted.
+// one thread. Times are the best of a few runs after a warm-up (one run from 1000 up); nothing is asserted.
 // "QL vectors" is the fallback method (`method: 'ql'`, every rotation into the vectors), timed up
 // to n = 1000 for comparison. The residual and orthogonality columns sample a few eigenvectors.
 import { spawnSync } from 'node:child_process';
@@ -100,7 +100,8 @@ console.log('    n   vectors (ms)   values only (ms)   QL vectors (ms)   residua
 try {
   for (const n of sizes) {
     const a = randomSymmetric(n, n);
-    const runs = n < 1000 ? 3 : 1;
+    const runs = n < 1000 ? 5 : 1;
+    if (n < 1000) symmetricEigen(a, n); // warm-up: the first calls run before the compiler has optimized the loops
     const withVectors = best(runs, () => symmetricEigen(a, n));
     const valuesOnly = best(runs, () => symmetricEigen(a, n, { vectors: false }));
     const ql = n <= 1000 ? best(1, () => symmetricEigen(a, n, { method: 'ql' })).ms : NaN;
