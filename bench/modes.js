@@ -1,13 +1,16 @@
-// Benchmark: the symmetric eigensolver (Householder + implicit QL) and the normal-mode pipeline.
+// Benchmark: the symmetric eigensolver (Householder, QL eigenvalues, inverse-iteration eigenvectors,
+// back-transformation) and the normal-mode pipeline.
 // Run after `npm run build`:  node bench/modes.js [sizes...]   (default sizes 300 1000; e.g. `node bench/modes.js 300 1000 3000`)
 //
 // For a baseline, when `python3 -c "import numpy"` works, the same matrix is diagonalized by
 // numpy.linalg.eigh (LAPACK dsyevd through numpy's BLAS/LAPACK), on one thread
 // (OPENBLAS_NUM_THREADS = OMP_NUM_THREADS = MKL_NUM_THREADS = 1) so that it is compared with our
-// one thread. Times are the best of a few runs (one run from 1000 up); nothing is asserted.
+// one thread. Times are the best of a few runs after a warm-up (one run from 1000 up); nothing is asserted.
+// "QL vectors" is the fallback method (`method: 'ql'`, every rotation into the vectors), timed up
+// to n = 1000 for comparison. The residual and orthogonality columns sample a few eigenvectors.
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { normalModes, symmetricEigen } from '../dist/index.js';
@@ -42,6 +45,19 @@ function best(runs, f) {
     t = Math.min(t, performance.now() - t0);
   }
   return { ms: t, out };
+}
+
+/** Largest |v_i · v_j − δ_ij| for i among the first, middle and last eigenvectors, j over all. */
+function orthogonality(n, eig) {
+  let worst = 0;
+  for (const i of [0, n >> 1, n - 1]) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      for (let c = 0; c < n; c++) s += eig.vectors[i * n + c] * eig.vectors[j * n + c];
+      worst = Math.max(worst, Math.abs(s - (i === j ? 1 : 0)));
+    }
+  }
+  return worst;
 }
 
 /** Largest |A v − λ v| over the first, middle and last eigenpairs, relative to n·max|A|. */
@@ -80,20 +96,24 @@ function numpyTime(a, n, runs) {
 }
 
 console.log(`symmetricEigen (values ascending + orthonormal vectors), node ${process.version}`);
-console.log('    n   vectors (ms)   values only (ms)   sweeps   residual   numpy eigh 1 thread (ms)   ratio');
+console.log('    n   vectors (ms)   values only (ms)   QL vectors (ms)   residual   orthogonality   numpy eigh 1 thread (ms)   ratio');
 try {
   for (const n of sizes) {
     const a = randomSymmetric(n, n);
-    const runs = n < 1000 ? 3 : 1;
+    const runs = n < 1000 ? 5 : 1;
+    if (n < 1000) symmetricEigen(a, n); // warm-up: the first calls run before the compiler has optimized the loops
     const withVectors = best(runs, () => symmetricEigen(a, n));
     const valuesOnly = best(runs, () => symmetricEigen(a, n, { vectors: false }));
+    const ql = n <= 1000 ? best(1, () => symmetricEigen(a, n, { method: 'ql' })).ms : NaN;
     const np = numpyTime(a, n, runs);
     console.log(
       `${String(n).padStart(5)}  ${withVectors.ms.toFixed(1).padStart(13)}  ${valuesOnly.ms.toFixed(1).padStart(17)}  ` +
-        `${String(withVectors.out.sweeps).padStart(7)}  ${residual(a, n, withVectors.out).toExponential(1).padStart(9)}  ` +
+        `${(Number.isNaN(ql) ? '-' : ql.toFixed(1)).padStart(16)}  ${residual(a, n, withVectors.out).toExponential(1).padStart(9)}  ` +
+        `${orthogonality(n, withVectors.out).toExponential(1).padStart(14)}  ` +
         `${(Number.isNaN(np) ? 'n/a' : np.toFixed(1)).padStart(25)}  ${Number.isNaN(np) ? '' : (withVectors.ms / np).toFixed(2) + '×'}`,
     );
   }
+  console.log('(ratio = our vectors time / numpy eigh; load average at the end: ' + loadavg().map((x) => x.toFixed(2)).join(' ') + ')');
 
   // The normal-mode pipeline on a synthetic Hessian of 100 atoms (3N = 300): a random
   // positive semi-definite matrix, so the timing covers weighting, removal of the rigid

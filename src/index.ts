@@ -101,8 +101,9 @@ export type { BondPerceptionOptions, TopologyInput, Topology, Hybridization } fr
 
 export { symmetricEigen, EigenConvergenceError } from './linalg/symmetric-eigen.js';
 export type { SymmetricEigen, SymmetricEigenOptions } from './linalg/symmetric-eigen.js';
-export { tridiagonalize, reflectorsTransposed } from './linalg/tridiagonal.js';
+export { tridiagonalize, reflectorsTransposed, applyReflectorsToRows } from './linalg/tridiagonal.js';
 export { tridiagonalQL, QL_SWEEPS_PER_EIGENVALUE } from './linalg/tridiagonal-ql.js';
+export { tridiagonalEigenvectors } from './linalg/tridiagonal-vectors.js';
 export { restrictToComplement } from './linalg/complement.js';
 export type { ComplementRestriction } from './linalg/complement.js';
 export { massWeightHessian } from './vibrations/mass-weight.js';

@@ -16,11 +16,17 @@
  * (row-major, entry (i, j) at `a[i * n + j]`, j ≥ i read; the lower
  * triangle is neither read nor kept) to tridiagonal form.
  *
+ * The rank-2 update of step k is applied to each row of the trailing block
+ * in the same pass that accumulates the product A v of step k + 1 (row
+ * k + 1 is updated first, to form the reflector of step k + 1), so the
+ * trailing triangle is read and written once per step.
+ *
  * Writes: `diagonal[i]` = T(i, i) (length n), `offDiagonal[i]` = T(i, i + 1)
  * for i < n − 1 (length n, the last entry set to 0), `beta[k]` the
  * reflector scale of step k (length n), and overwrites `a`: row k, columns
- * k + 1 … n − 1, holds the reflector vector v of step k; the rest of `a` is
- * scratch. `scratch` must have length ≥ n. Never allocates, never throws.
+ * k + 1 … n − 1, holds the reflector vector v of step k (all zero when
+ * `beta[k]` is 0); the rest of `a` is scratch. `scratch` must have length
+ * ≥ 2n. Never allocates, never throws.
  */
 export function tridiagonalize(
   a: Float64Array,
@@ -30,10 +36,18 @@ export function tridiagonalize(
   beta: Float64Array,
   scratch: Float64Array,
 ): void {
-  const p = scratch;
+  let p = scratch.subarray(0, n); // A v of this step, then w
+  let w = scratch.subarray(n, 2 * n); // w of the previous step, still to be applied
+  let pending = false; // rows > k still lack the previous step's update (v in row k − 1, w)
   for (let k = 0; k < n - 1; k++) {
     const row = k * n;
     const start = k + 1;
+    if (pending) {
+      const prev = row - n;
+      const vk = a[prev + k];
+      const wk = w[k];
+      for (let j = k; j < n; j++) a[row + j] -= vk * w[j] + wk * a[prev + j];
+    }
     diagonal[k] = a[row + k];
     // x = a[k, k+1 .. n-1]; reflect it onto alpha e1.
     let tail = 0;
@@ -44,6 +58,16 @@ export function tridiagonalize(
       offDiagonal[k] = x0;
       beta[k] = 0;
       a[row + start] = 0;
+      if (pending) {
+        const prev = row - n;
+        for (let i = start; i < n; i++) {
+          const ri = i * n;
+          const vi = a[prev + i];
+          const wi = w[i];
+          for (let j = i; j < n; j++) a[ri + j] -= vi * w[j] + wi * a[prev + j];
+        }
+      }
+      pending = false;
       continue;
     }
     const norm = Math.sqrt(x0 * x0 + tail);
@@ -52,18 +76,64 @@ export function tridiagonalize(
     a[row + start] = x0 - alpha;
     offDiagonal[k] = alpha;
     beta[k] = b;
-    // p = b A22 v, from the upper triangle of the trailing block.
+    // p = b A22 v, from the upper triangle of the trailing block (updated on the way when pending).
     for (let i = start; i < n; i++) p[i] = 0;
-    for (let i = start; i < n; i++) {
-      const ri = i * n;
-      const vi = a[row + i];
-      let s = a[ri + i] * vi;
-      for (let j = i + 1; j < n; j++) {
-        const aij = a[ri + j];
-        s += aij * a[row + j];
-        p[j] += aij * vi;
+    if (pending) {
+      // Two rows per pass: the vectors' entries are loaded once for both.
+      const prev = row - n;
+      let i = start;
+      for (; i + 1 < n; i += 2) {
+        const ri = i * n;
+        const rk = ri + n;
+        const i1 = i + 1;
+        const ui = a[prev + i];
+        const wi = w[i];
+        const vi = a[row + i];
+        const uk = a[prev + i1];
+        const wk = w[i1];
+        const vk = a[row + i1];
+        const aii = a[ri + i] - 2 * ui * wi;
+        a[ri + i] = aii;
+        const aik = a[ri + i1] - (ui * wk + wi * uk);
+        a[ri + i1] = aik;
+        const akk = a[rk + i1] - 2 * uk * wk;
+        a[rk + i1] = akk;
+        let si = aii * vi + aik * vk;
+        let sk = aik * vi + akk * vk;
+        for (let j = i + 2; j < n; j++) {
+          const uj = a[prev + j];
+          const wj = w[j];
+          const vj = a[row + j];
+          const x = a[ri + j] - (ui * wj + wi * uj);
+          const y = a[rk + j] - (uk * wj + wk * uj);
+          a[ri + j] = x;
+          a[rk + j] = y;
+          si += x * vj;
+          sk += y * vj;
+          p[j] += x * vi + y * vk;
+        }
+        p[i] += si;
+        p[i1] += sk;
       }
-      p[i] += s;
+      if (i < n) {
+        // The last row alone: only its diagonal entry.
+        const ri = i * n;
+        const aii = a[ri + i] - 2 * a[prev + i] * w[i];
+        a[ri + i] = aii;
+        p[i] += aii * a[row + i];
+      }
+    } else {
+      for (let i = start; i < n; i++) {
+        const ri = i * n;
+        const vi = a[row + i];
+        let s = a[ri + i] * vi;
+        for (let j = i + 1; j < n; j++) {
+          const aij = a[ri + j];
+          s += aij * a[row + j];
+          p[j] += aij * vi;
+        }
+        p[i] += s;
+      }
     }
     let pv = 0;
     for (let i = start; i < n; i++) {
@@ -72,15 +142,18 @@ export function tridiagonalize(
     }
     const half = 0.5 * b * pv;
     for (let i = start; i < n; i++) p[i] -= half * a[row + i]; // p is now w
-    // A22 ← A22 − v wᵀ − w vᵀ (upper triangle).
-    for (let i = start; i < n; i++) {
-      const ri = i * n;
-      const vi = a[row + i];
-      const wi = p[i];
-      for (let j = i; j < n; j++) a[ri + j] -= vi * p[j] + wi * a[row + j];
-    }
+    const t = w;
+    w = p;
+    p = t;
+    pending = true;
   }
   if (n > 0) {
+    if (pending) {
+      // Only the last diagonal entry is left to update.
+      const prev = (n - 2) * n;
+      const last = n - 1;
+      a[last * n + last] -= 2 * a[prev + last] * w[last];
+    }
     diagonal[n - 1] = a[(n - 1) * n + n - 1];
     offDiagonal[n - 1] = 0;
     beta[n - 1] = 0;
@@ -116,5 +189,156 @@ export function reflectorsTransposed(a: Float64Array, n: number, beta: Float64Ar
       if (ui === 0) continue;
       for (let j = start; j < n; j++) out[ri + j] -= ui * a[row + j];
     }
+  }
+}
+
+/**
+ * Back-transformation: replace every row z of `rows` (row-major, `count`
+ * rows of length n) by Q z, where A = Q T Qᵀ and Q = H_0 H_1 ⋯ H_{n−2} is
+ * held as reflectors in `a` and `beta` by {@link tridiagonalize}; an
+ * eigenvector of T becomes one of A. The reflectors are applied
+ * H_{n−2} first, each as z ← z − β (vᵀz) v along contiguous rows: two
+ * reflectors and four rows per pass (the second reflector's product is
+ * corrected by β_k vᵀ_{k−1} v_k, computed once), over a tile of rows at a
+ * time so that the tile stays in cache while the reflectors stream past it
+ * (about 2 n² · count operations). Never allocates, never throws.
+ */
+export function applyReflectorsToRows(a: Float64Array, n: number, beta: Float64Array, rows: Float64Array, count: number): void {
+  const tile = Math.max(4, Math.min(64, Math.floor(32768 / Math.max(n, 1))));
+  for (let first = 0; first < count; first += tile) {
+    const last = Math.min(count, first + tile);
+    let k = n - 2;
+    for (; k >= 1; k -= 2) reflectorPair(a, n, beta, rows, first, last, k);
+    if (k === 0) reflectorPair(a, n, beta, rows, first, last, 1, true);
+  }
+}
+
+/**
+ * z ← H_{k−1} H_k z for rows first … last − 1 (or, with `onlyLower`, just
+ * H_{k−1}). v_k lives in a[k n + j], j > k; v_{k−1} in a[(k − 1) n + j], j ≥ k.
+ */
+function reflectorPair(
+  a: Float64Array,
+  n: number,
+  beta: Float64Array,
+  rows: Float64Array,
+  first: number,
+  last: number,
+  k: number,
+  onlyLower = false,
+): void {
+  const bk = onlyLower ? 0 : beta[k];
+  const bl = beta[k - 1];
+  if (bk === 0 && bl === 0) return;
+  const vk = k * n;
+  const vl = vk - n;
+  const start = k + 1;
+  let cross = 0; // v_{k−1} · v_k
+  if (bk !== 0) for (let j = start; j < n; j++) cross += a[vl + j] * a[vk + j];
+  const head = a[vl + k];
+  let r = first;
+  if (bk !== 0) {
+    for (; r + 3 < last; r += 4) {
+      const z0 = r * n;
+      const z1 = z0 + n;
+      const z2 = z1 + n;
+      const z3 = z2 + n;
+      let p0 = 0;
+      let p1 = 0;
+      let p2 = 0;
+      let p3 = 0;
+      let q0 = rows[z0 + k] * head;
+      let q1 = rows[z1 + k] * head;
+      let q2 = rows[z2 + k] * head;
+      let q3 = rows[z3 + k] * head;
+      for (let j = start; j < n; j++) {
+        const x = a[vk + j];
+        const y = a[vl + j];
+        const w0 = rows[z0 + j];
+        const w1 = rows[z1 + j];
+        const w2 = rows[z2 + j];
+        const w3 = rows[z3 + j];
+        p0 += w0 * x;
+        q0 += w0 * y;
+        p1 += w1 * x;
+        q1 += w1 * y;
+        p2 += w2 * x;
+        q2 += w2 * y;
+        p3 += w3 * x;
+        q3 += w3 * y;
+      }
+      const s0 = bk * p0;
+      const s1 = bk * p1;
+      const s2 = bk * p2;
+      const s3 = bk * p3;
+      const t0 = bl * (q0 - s0 * cross);
+      const t1 = bl * (q1 - s1 * cross);
+      const t2 = bl * (q2 - s2 * cross);
+      const t3 = bl * (q3 - s3 * cross);
+      rows[z0 + k] -= t0 * head;
+      rows[z1 + k] -= t1 * head;
+      rows[z2 + k] -= t2 * head;
+      rows[z3 + k] -= t3 * head;
+      for (let j = start; j < n; j++) {
+        const x = a[vk + j];
+        const y = a[vl + j];
+        rows[z0 + j] -= s0 * x + t0 * y;
+        rows[z1 + j] -= s1 * x + t1 * y;
+        rows[z2 + j] -= s2 * x + t2 * y;
+        rows[z3 + j] -= s3 * x + t3 * y;
+      }
+    }
+  }
+  for (; r + 1 < last; r += 2) {
+    const z0 = r * n;
+    const z1 = z0 + n;
+    let p0 = 0;
+    let p1 = 0;
+    let q0 = rows[z0 + k] * head;
+    let q1 = rows[z1 + k] * head;
+    if (bk !== 0) {
+      for (let j = start; j < n; j++) {
+        const x = a[vk + j];
+        const y = a[vl + j];
+        const w0 = rows[z0 + j];
+        const w1 = rows[z1 + j];
+        p0 += w0 * x;
+        q0 += w0 * y;
+        p1 += w1 * x;
+        q1 += w1 * y;
+      }
+    } else {
+      for (let j = start; j < n; j++) {
+        const y = a[vl + j];
+        q0 += rows[z0 + j] * y;
+        q1 += rows[z1 + j] * y;
+      }
+    }
+    const s0 = bk * p0;
+    const s1 = bk * p1;
+    const t0 = bl * (q0 - s0 * cross);
+    const t1 = bl * (q1 - s1 * cross);
+    rows[z0 + k] -= t0 * head;
+    rows[z1 + k] -= t1 * head;
+    for (let j = start; j < n; j++) {
+      const x = a[vk + j];
+      const y = a[vl + j];
+      rows[z0 + j] -= s0 * x + t0 * y;
+      rows[z1 + j] -= s1 * x + t1 * y;
+    }
+  }
+  if (r < last) {
+    const z0 = r * n;
+    let p0 = 0;
+    let q0 = rows[z0 + k] * head;
+    for (let j = start; j < n; j++) {
+      const w0 = rows[z0 + j];
+      p0 += w0 * a[vk + j];
+      q0 += w0 * a[vl + j];
+    }
+    const s0 = bk * p0;
+    const t0 = bl * (q0 - s0 * cross);
+    rows[z0 + k] -= t0 * head;
+    for (let j = start; j < n; j++) rows[z0 + j] -= s0 * a[vk + j] + t0 * a[vl + j];
   }
 }

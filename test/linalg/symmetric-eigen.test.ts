@@ -50,8 +50,12 @@ function withSpectrum(values: readonly number[], seed: number): Float64Array {
 }
 
 /** Largest |A v_i − λ_i v_i| over ‖A‖_max·n, and largest |VᵀV − I|. */
-function residuals(a: Float64Array, n: number): { residual: number; orthogonality: number; values: Float64Array } {
-  const { values, vectors } = symmetricEigen(a, n);
+function residuals(
+  a: Float64Array,
+  n: number,
+  method: 'inverse-iteration' | 'ql' = 'inverse-iteration',
+): { residual: number; orthogonality: number; values: Float64Array } {
+  const { values, vectors } = symmetricEigen(a, n, { method });
   let scale = 0;
   for (let i = 0; i < n * n; i++) scale = Math.max(scale, Math.abs(a[i]));
   scale = Math.max(scale, Number.MIN_VALUE) * n;
@@ -241,5 +245,146 @@ describe('symmetricEigen: boundary checks', () => {
     // NaN never passes the negligibility test, so eigenvalue 0 never converges.
     expect(tridiagonalQL(d, e, 3)).toBe(-1);
     expect(new EigenConvergenceError('x').name).toBe('EigenConvergenceError');
+  });
+});
+
+/** A copy of the n×n `block` c times on the diagonal, turned by a random orthogonal matrix: every eigenvalue exactly c-fold. */
+function blockCopies(block: Float64Array, n: number, c: number, seed: number): Float64Array {
+  const size = n * c;
+  const m = new Float64Array(size * size);
+  for (let b = 0; b < c; b++) {
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) m[(b * n + i) * size + b * n + j] = block[i * n + j];
+  }
+  // Two Householder similarities H m H, H = I − 2 u uᵀ / uᵀu.
+  const r = createRandom(seed);
+  for (let h = 0; h < 2; h++) {
+    const u = Float64Array.from({ length: size }, () => r.uniform(-1, 1));
+    const uu = u.reduce((s, x) => s + x * x, 0);
+    const mu = new Float64Array(size);
+    for (let i = 0; i < size; i++) for (let j = 0; j < size; j++) mu[i] += m[i * size + j] * u[j];
+    let umu = 0;
+    for (let i = 0; i < size; i++) umu += u[i] * mu[i];
+    // H m H = m − (2/uu)(mu uᵀ + u muᵀ) + (4 umu/uu²) u uᵀ
+    for (let i = 0; i < size; i++) {
+      for (let j = 0; j < size; j++) {
+        m[i * size + j] += (-2 / uu) * (mu[i] * u[j] + u[i] * mu[j]) + ((4 * umu) / (uu * uu)) * u[i] * u[j];
+      }
+    }
+  }
+  return m;
+}
+
+/**
+ * The mass-weighted Hessian of a 4×4×4 cubic lattice of point masses joined
+ * by harmonic springs (k = 1) along the cube edges and face diagonals, at
+ * rest: the block of a spring i–j with unit direction u is k u uᵀ on the
+ * diagonal and −k u uᵀ off it (common practice); the masses (12 inside,
+ * 16 on the surface) keep the full cubic symmetry, so the spectrum has
+ * exactly two- and three-fold degenerate eigenvalues (the irreducible
+ * representations of the cube's symmetry group have dimensions 1, 2 and 3;
+ * common practice).
+ */
+function latticeHessian(): { h: Float64Array; n: number } {
+  const side = 4;
+  const atoms = side ** 3;
+  const n = 3 * atoms;
+  const at = (x: number, y: number, z: number): number => (x * side + y) * side + z;
+  const pos = (i: number): number[] => [Math.floor(i / 16), Math.floor(i / 4) % 4, i % 4];
+  const mass = (i: number): number => (pos(i).some((c) => c === 0 || c === side - 1) ? 16 : 12);
+  const h = new Float64Array(n * n);
+  const spring = (i: number, j: number): void => {
+    const p = pos(i);
+    const q = pos(j);
+    const d = [q[0] - p[0], q[1] - p[1], q[2] - p[2]];
+    const len = Math.hypot(d[0], d[1], d[2]);
+    const w = 1 / Math.sqrt(mass(i) * mass(j));
+    for (let a = 0; a < 3; a++) {
+      for (let b = 0; b < 3; b++) {
+        const k = (d[a] * d[b]) / (len * len);
+        h[(3 * i + a) * n + 3 * i + b] += k / mass(i);
+        h[(3 * j + a) * n + 3 * j + b] += k / mass(j);
+        h[(3 * i + a) * n + 3 * j + b] -= k * w;
+        h[(3 * j + a) * n + 3 * i + b] -= k * w;
+      }
+    }
+  };
+  for (let x = 0; x < side; x++) {
+    for (let y = 0; y < side; y++) {
+      for (let z = 0; z < side; z++) {
+        const i = at(x, y, z);
+        if (x + 1 < side) spring(i, at(x + 1, y, z));
+        if (y + 1 < side) spring(i, at(x, y + 1, z));
+        if (z + 1 < side) spring(i, at(x, y, z + 1));
+        if (x + 1 < side && y + 1 < side) (spring(i, at(x + 1, y + 1, z)), spring(at(x + 1, y, z), at(x, y + 1, z)));
+        if (x + 1 < side && z + 1 < side) (spring(i, at(x + 1, y, z + 1)), spring(at(x + 1, y, z), at(x, y, z + 1)));
+        if (y + 1 < side && z + 1 < side) (spring(i, at(x, y + 1, z + 1)), spring(at(x, y + 1, z), at(x, y, z + 1)));
+      }
+    }
+  }
+  return { h, n };
+}
+
+/** Sizes of the groups of eigenvalues agreeing to `tol` (ascending input). */
+function multiplicities(values: Float64Array, tol: number): number[] {
+  const out: number[] = [];
+  let count = 1;
+  for (let i = 1; i <= values.length; i++) {
+    if (i < values.length && values[i] - values[i - 1] <= tol) count++;
+    else {
+      out.push(count);
+      count = 1;
+    }
+  }
+  return out;
+}
+
+describe('symmetricEigen: degenerate and clustered spectra (both methods)', () => {
+  for (const method of ['inverse-iteration', 'ql'] as const) {
+    it(`${method}: n = 300, 30 eigenvalues ten-fold each, ten of them split by 1e-11 … 1e-9`, () => {
+      const spectrum = Array.from({ length: 300 }, (_, i) => {
+        const level = i % 30;
+        const copy = Math.floor(i / 30);
+        return level - 15 + (level < 10 ? copy * 10 ** (-11 + (level % 3)) : 0);
+      });
+      const a = withSpectrum(spectrum, 21);
+      const { residual, orthogonality, values } = residuals(a, 300, method);
+      expect(residual).toBeLessThan(1e-13);
+      expect(orthogonality).toBeLessThan(1e-12);
+      const sorted = [...spectrum].sort((p, q) => p - q);
+      sorted.forEach((v, i) => expect(Math.abs(values[i] - v)).toBeLessThan(1e-12));
+    });
+
+    it(`${method}: the mass-weighted Hessian of a cubic lattice (exact two- and three-fold degeneracies)`, () => {
+      const { h, n } = latticeHessian();
+      const { residual, orthogonality, values } = residuals(h, n, method);
+      expect(residual).toBeLessThan(1e-13);
+      expect(orthogonality).toBeLessThan(1e-12);
+      const groups = multiplicities(values, 1e-12);
+      expect(groups.filter((g) => g === 3).length).toBeGreaterThan(5);
+      expect(groups.filter((g) => g === 2).length).toBeGreaterThan(2);
+      expect(groups[0]).toBeGreaterThanOrEqual(6); // the free body's translations and rotations
+    });
+  }
+
+  it('both methods give the same eigenvalues on a random 200×200 matrix', () => {
+    const a = randomSymmetric(200, 8);
+    const fast = symmetricEigen(a, 200);
+    const slow = symmetricEigen(a, 200, { method: 'ql' });
+    for (let i = 0; i < 200; i++) expect(Math.abs(fast.values[i] - slow.values[i])).toBeLessThan(1e-12);
+  });
+
+  it('property: copies of a random block turned by a random rotation: orthonormal, each eigenvalue c-fold (fast-check)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 6 }), fc.integer({ min: 2, max: 6 }), fc.integer(), (n, c, seed) => {
+        const a = blockCopies(randomSymmetric(n, seed), n, c, seed + 1);
+        const { residual, orthogonality, values } = residuals(a, n * c);
+        if (!(residual < 1e-13 && orthogonality < 1e-12 && ascending(values))) return false;
+        for (let b = 0; b < n; b++) {
+          for (let k = 1; k < c; k++) if (Math.abs(values[b * c + k] - values[b * c]) > 1e-12 * n) return false;
+        }
+        return true;
+      }),
+      { numRuns: 60 },
+    );
   });
 });

@@ -24,7 +24,7 @@ describe('tridiagonalize + reflectorsTransposed', () => {
       const d = new Float64Array(n);
       const e = new Float64Array(n);
       const beta = new Float64Array(n);
-      const scratch = new Float64Array(n);
+      const scratch = new Float64Array(2 * n);
       tridiagonalize(work, n, d, e, beta, scratch);
       const qt = new Float64Array(n * n);
       reflectorsTransposed(work, n, beta, qt, scratch);
