@@ -5,6 +5,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { symmetricEigen } from '../../src/linalg/symmetric-eigen.js';
 import { tridiagonalEigenvectors } from '../../src/linalg/tridiagonal-vectors.js';
 import { createRandom } from '../helpers/random.js';
 
@@ -141,11 +142,53 @@ describe('tridiagonalEigenvectors', () => {
       fc.property(
         fc.integer({ min: 1, max: 40 }).chain((n) => fc.tuple(fc.array(entry, { minLength: n, maxLength: n }), fc.array(entry, { minLength: n, maxLength: n }))),
         ([ds, es]) => {
+          // Either accurate vectors, or an honest failure (−1) that sends symmetricEigen to QL:
+          // never inaccurate vectors reported as found.
           const t = check(Float64Array.from(ds), Float64Array.from(es));
-          return t.ok && t.residual < 1e-14 && t.orthogonality < 1e-12;
+          return !t.ok || (t.residual < 1e-14 && t.orthogonality < 1e-12);
         },
       ),
       { numRuns: 200 },
     );
+  });
+
+  it('reports failure instead of inaccurate vectors on the matrices the property test found, and symmetricEigen is exact on them', () => {
+    // Found by fast-check (seeds -891709601 and 535754374 of the property above): inverse
+    // iteration "converged" to vectors with residual 0.4–0.5; the a posteriori check now refuses
+    // them and symmetricEigen falls back to QL with vectors.
+    const cases: [number[], number[]][] = [
+      [[0, 1e-9, 1e-9, -1, 2, 0], [1e-9, -1, 1e-9, -1e-13, 1e-9, -1]],
+      [
+        [0, 0, 2, 2, -1e-13, 0, 0, -1e-13, 1, -1, 1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1],
+        [1e-9, 1e-9, 2, 1e-9, 1, -1e-13, -1e-13, 2, 1e-9, -1, 0, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1, -1],
+      ],
+    ];
+    for (const [ds, es] of cases) {
+      const t = check(Float64Array.from(ds), Float64Array.from(es));
+      expect(!t.ok || (t.residual < 1e-14 && t.orthogonality < 1e-12)).toBe(true);
+      const n = ds.length;
+      const a = new Float64Array(n * n);
+      for (let i = 0; i < n; i++) {
+        a[i * n + i] = ds[i];
+        if (i < n - 1) a[i * n + i + 1] = a[(i + 1) * n + i] = es[i];
+      }
+      const eig = symmetricEigen(a, n);
+      let residual = 0;
+      let orthogonality = 0;
+      for (let r = 0; r < n; r++) {
+        for (let i = 0; i < n; i++) {
+          let s = 0;
+          for (let c = 0; c < n; c++) s += a[i * n + c] * eig.vectors[r * n + c];
+          residual = Math.max(residual, Math.abs(s - eig.values[r] * eig.vectors[r * n + i]));
+        }
+        for (let q = r; q < n; q++) {
+          let dot = 0;
+          for (let i = 0; i < n; i++) dot += eig.vectors[r * n + i] * eig.vectors[q * n + i];
+          orthogonality = Math.max(orthogonality, Math.abs(dot - (q === r ? 1 : 0)));
+        }
+      }
+      expect(residual).toBeLessThan(1e-13);
+      expect(orthogonality).toBeLessThan(1e-12);
+    }
   });
 });
