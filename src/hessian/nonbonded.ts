@@ -31,12 +31,10 @@
  * block-sparse assembly read the same list.
  * @module
  */
-import type { NonbondedPairs } from '../terms/nonbonded.js';
+import { cellGrid, type NonbondedPairs } from '../terms/nonbonded.js';
 
 /** Numbers kept per pair block: A, B, then d = x_j − x_i. */
 const PER_PAIR = 5;
-/** Relative margin by which cells are made larger than the cutoff, against rounding in the cell index. */
-const CELL_MARGIN = 1 + 1e-9;
 
 /**
  * The nonbonded pair blocks of one pair set at one geometry. Make one per
@@ -62,6 +60,7 @@ export class NonbondedPairHessian {
   readonly #cellOf: Int32Array;
   readonly #cellAtoms: Int32Array;
   readonly #cellStart: Int32Array;
+  readonly #grid = new Float64Array(9);
 
   /** A pair Hessian of `pairs` (empty until {@link update}); allocates its scratch once. */
   constructor(pairs: NonbondedPairs) {
@@ -136,38 +135,11 @@ export class NonbondedPairHessian {
     const cellStart = this.#cellStart;
     const stamp = this.#stamp;
     const { skipStart, skipList } = p;
-    let minX = Infinity;
-    let minY = Infinity;
-    let minZ = Infinity;
-    let maxX = -Infinity;
-    let maxY = -Infinity;
-    let maxZ = -Infinity;
-    for (let a = 0; a < n; a++) {
-      minX = Math.min(minX, x[3 * a]);
-      maxX = Math.max(maxX, x[3 * a]);
-      minY = Math.min(minY, x[3 * a + 1]);
-      maxY = Math.max(maxY, x[3 * a + 1]);
-      minZ = Math.min(minZ, x[3 * a + 2]);
-      maxZ = Math.max(maxZ, x[3 * a + 2]);
-    }
-    const spanX = maxX - minX;
-    const spanY = maxY - minY;
-    const spanZ = maxZ - minZ;
-    let side = p.cutoff * CELL_MARGIN;
-    let nx = 1;
-    let ny = 1;
-    let nz = 1;
-    for (let round = 0; round < 4000; round++) {
-      nx = Math.max(1, Math.floor(spanX / side));
-      ny = Math.max(1, Math.floor(spanY / side));
-      nz = Math.max(1, Math.floor(spanZ / side));
-      if (nx * ny * nz <= n) break;
-      side *= 1.25;
-    }
-    if (!(nx * ny * nz <= n)) nx = ny = nz = 1;
-    const fx = spanX > 0 ? nx / spanX : 0;
-    const fy = spanY > 0 ? ny / spanY : 0;
-    const fz = spanZ > 0 ? nz / spanZ : 0;
+    const grid = this.#grid;
+    cellGrid(x, n, p.cutoff, n, grid);
+    const minX = grid[0], minY = grid[1], minZ = grid[2];
+    const nx = grid[3], ny = grid[4], nz = grid[5];
+    const fx = grid[6], fy = grid[7], fz = grid[8];
     const cells = nx * ny * nz;
     // counting sort by cell: cellStart[c + 1] counts, then prefix sums
     cellStart.fill(0, 0, cells + 2);

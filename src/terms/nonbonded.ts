@@ -130,6 +130,8 @@ interface Workspace {
   readonly sortedCharge: Float64Array;
   /** Energy sums of one evaluation: [Lennard-Jones, Coulomb]. */
   readonly sums: Float64Array;
+  /** The cell grid of one evaluation (see {@link cellGrid}). */
+  readonly grid: Float64Array;
   /** The view of the arrays in atom order (the all-pairs pass). */
   readonly atomView: View;
   /** The view of the arrays in cell order (the cell pass). */
@@ -266,6 +268,7 @@ export function createNonbondedPairs(parameters: NonbondedParameters): Nonbonded
     sortedScaledCharge,
     sortedCharge,
     sums: new Float64Array(2),
+    grid: new Float64Array(9),
     atomView: { x: sortedX, g: undefined, sqrtEpsilon, size, scaledCharge, charge },
     cellView: {
       x: sortedX,
@@ -509,24 +512,15 @@ function allPairsPass(
 }
 
 /**
- * The cell-list pass: sort the atoms into cells of side ≥ cutoff, copy
- * coordinates and parameters into that order (so each cell's atoms are
- * contiguous in memory), and visit each cell's own pairs and those with its
- * 13 forward neighbours. The coordinates must be finite.
+ * The cell grid of a cell list over the coordinates' bounding box: cells of
+ * side ≥ cutoff (with a margin against rounding), made larger while there
+ * would be more than `maxCells`. Writes into `grid` (length ≥ 9)
+ * [minX, minY, minZ, nx, ny, nz, fx, fy, fz]: the box's low corner, the cell
+ * counts per axis, and the factors that turn an offset from the corner into
+ * a cell coordinate (cell = min(n − 1, floor((x − min) · f))). The first `n`
+ * atoms of `x` are used and must be finite. Never allocates.
  */
-function cellPass(
-  x: Float64Array,
-  gradient: Float64Array | undefined,
-  p: NonbondedPairs,
-  useLJ: boolean,
-  useCoulomb: boolean,
-  rc2: number,
-  ic6: number,
-  irc: number,
-): void {
-  const n = p.atomCount;
-  const w = p.workspace;
-  const { cellOf, cellAtoms, positionOf, cellStart, maxCells, stamp, sums } = w;
+export function cellGrid(x: Float64Array, n: number, cutoff: number, maxCells: number, grid: Float64Array): void {
   let minX = Infinity;
   let minY = Infinity;
   let minZ = Infinity;
@@ -548,7 +542,7 @@ function cellPass(
   const spanY = maxY - minY;
   const spanZ = maxZ - minZ;
   // Cells of side ≥ cutoff (with a margin against rounding), made larger while there would be too many.
-  let side = p.cutoff * CELL_MARGIN;
+  let side = cutoff * CELL_MARGIN;
   let nx = 1;
   let ny = 1;
   let nz = 1;
@@ -560,9 +554,41 @@ function cellPass(
     side *= 1.25;
   }
   if (!(nx * ny * nz <= maxCells)) nx = ny = nz = 1;
-  const fx = spanX > 0 ? nx / spanX : 0;
-  const fy = spanY > 0 ? ny / spanY : 0;
-  const fz = spanZ > 0 ? nz / spanZ : 0;
+  grid[0] = minX;
+  grid[1] = minY;
+  grid[2] = minZ;
+  grid[3] = nx;
+  grid[4] = ny;
+  grid[5] = nz;
+  grid[6] = spanX > 0 ? nx / spanX : 0;
+  grid[7] = spanY > 0 ? ny / spanY : 0;
+  grid[8] = spanZ > 0 ? nz / spanZ : 0;
+}
+
+/**
+ * The cell-list pass: sort the atoms into cells of side ≥ cutoff, copy
+ * coordinates and parameters into that order (so each cell's atoms are
+ * contiguous in memory), and visit each cell's own pairs and those with its
+ * 13 forward neighbours. The coordinates must be finite.
+ */
+function cellPass(
+  x: Float64Array,
+  gradient: Float64Array | undefined,
+  p: NonbondedPairs,
+  useLJ: boolean,
+  useCoulomb: boolean,
+  rc2: number,
+  ic6: number,
+  irc: number,
+): void {
+  const n = p.atomCount;
+  const w = p.workspace;
+  const { cellOf, cellAtoms, positionOf, cellStart, maxCells, stamp, sums } = w;
+  const grid = w.grid;
+  cellGrid(x, n, p.cutoff, maxCells, grid);
+  const minX = grid[0], minY = grid[1], minZ = grid[2];
+  const nx = grid[3], ny = grid[4], nz = grid[5];
+  const fx = grid[6], fy = grid[7], fz = grid[8];
   const cells = nx * ny * nz;
   cellStart.fill(0, 0, cells + 1);
   for (let a = 0; a < n; a++) {
