@@ -178,7 +178,7 @@ export function stiffTermPreconditioner(
     });
     let trace = 0;
     let moving = 0;
-    for (let a = 0; a < atoms(); a++) {
+    for (let a = 0; a < atomCount; a++) {
       if (isFrozen[a]) continue;
       trace += diagonal[9 * a] + diagonal[9 * a + 4] + diagonal[9 * a + 8];
       moving += 3;
@@ -197,7 +197,6 @@ export function stiffTermPreconditioner(
     }
     return factor.factor(diagonal, pairs, off);
   };
-  const atoms = (): number => atomCount;
 
   return {
     update: assemble,
