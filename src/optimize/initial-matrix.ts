@@ -24,6 +24,7 @@
  * scalar case. Everything is allocated once; `apply` never allocates.
  * @module
  */
+import { jsKernels, type VectorKernels } from '../linalg/vector-kernels.js';
 
 /** How H0 is formed; see the module documentation. */
 export type InitialMatrixForm = 'scalar' | 'diagonal' | 'block';
@@ -45,14 +46,24 @@ export interface InitialMatrix {
  * Make an initial matrix of the given form for vectors of length `n`.
  * `'block'` needs n to be a multiple of 3; for other lengths it falls back
  * to `'diagonal'`.
+ *
+ * `workspace` (optional): the vector workspace the minimizer's vectors come
+ * from, with two spare vectors of length n; the scalar and diagonal forms
+ * then run on its kernels (every vector later handed to `update` and `apply`
+ * must come from the same workspace).
  */
-export function createInitialMatrix(form: InitialMatrixForm, n: number): InitialMatrix {
+export function createInitialMatrix(
+  form: InitialMatrixForm,
+  n: number,
+  workspace?: { kernels: VectorKernels; b: Float64Array; h: Float64Array },
+): InitialMatrix {
   if (form === 'block' && n % 3 === 0) return blockMatrix(n);
-  if (form === 'scalar') return scalarMatrix();
-  return diagonalMatrix(n);
+  const kernels = workspace?.kernels ?? jsKernels;
+  if (form === 'scalar') return scalarMatrix(kernels);
+  return diagonalMatrix(kernels, workspace?.b ?? new Float64Array(n), workspace?.h ?? new Float64Array(n));
 }
 
-function scalarMatrix(): InitialMatrix {
+function scalarMatrix(kernels: VectorKernels): InitialMatrix {
   let gamma = 1;
   return {
     reset() {
@@ -62,14 +73,12 @@ function scalarMatrix(): InitialMatrix {
       gamma = sy / yy;
     },
     apply(v) {
-      for (let i = 0; i < v.length; i++) v[i] *= gamma;
+      kernels.scale(v, gamma);
     },
   };
 }
 
-function diagonalMatrix(n: number): InitialMatrix {
-  const b = new Float64Array(n);
-  const h = new Float64Array(n);
+function diagonalMatrix(kernels: VectorKernels, b: Float64Array, h: Float64Array): InitialMatrix {
   let fresh = true;
   return {
     reset() {
@@ -81,24 +90,13 @@ function diagonalMatrix(n: number): InitialMatrix {
         b.fill(base);
         fresh = false;
       }
-      let sBs = 0;
-      for (let i = 0; i < n; i++) sBs += b[i] * s[i] * s[i];
-      let yHy = 0;
-      for (let i = 0; i < n; i++) {
-        const bs = b[i] * s[i];
-        const next = b[i] + (y[i] * y[i]) / sy - (bs * bs) / sBs;
-        const v = next > 1e-12 * base && Number.isFinite(next) ? next : base;
-        b[i] = v;
-        yHy += (y[i] * y[i]) / v;
-      }
-      const c = yHy / sy;
-      for (let i = 0; i < n; i++) {
-        b[i] *= c;
-        h[i] = 1 / b[i];
-      }
+      // bᵢ ← bᵢ + yᵢ²/sᵀy − (bᵢsᵢ)²/sᵀBs, kept > 1e-12 base and finite
+      const sBs = kernels.weightedDot(b, s, s);
+      const yHy = kernels.diagonalUpdate(b, s, y, 1 / sy, 1 / sBs, 1e-12 * base, base);
+      kernels.scaleAndInvert(b, h, yHy / sy);
     },
     apply(v) {
-      for (let i = 0; i < n; i++) v[i] *= h[i];
+      kernels.multiply(v, h);
     },
   };
 }

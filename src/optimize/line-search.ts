@@ -5,6 +5,7 @@
  * decrease", ACM TOMS 20 (1994) 286–307.
  * @module
  */
+import { jsKernels, type VectorKernels } from '../linalg/vector-kernels.js';
 import type { ObjectiveFunction, Projection } from './types.js';
 
 /** Settings of {@link lineSearch}; every field has a default. */
@@ -139,12 +140,6 @@ function nextStep(st: StepState, stp: number, fp: number, dp: number, stpmin: nu
   return Number.isFinite(stpf) ? stpf : (st.stx + st.sty) / 2;
 }
 
-function dot(a: Float64Array, b: Float64Array): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
-  return s;
-}
-
 /**
  * Searches along `d` from `x` for a step α with
  * φ(α) ≤ φ(0) + c1 α φ'(0) and |φ'(α)| ≤ c2 |φ'(0)|, where φ(α) = f(x + α d).
@@ -167,6 +162,9 @@ function dot(a: Float64Array, b: Float64Array): number {
  * @param initialStep the first trial α (> 0).
  * @param xTrial work array of length n, receives the last trial point.
  * @param gTrial work array of length n, receives its gradient.
+ * @param kernels the vector kernels for the trial points and slopes (the
+ *   minimizers pass their workspace's; every array must then come from that
+ *   workspace). Default: plain JavaScript loops.
  */
 export function lineSearch(
   fn: ObjectiveFunction,
@@ -178,6 +176,7 @@ export function lineSearch(
   xTrial: Float64Array,
   gTrial: Float64Array,
   options: LineSearchOptions = {},
+  kernels: VectorKernels = jsKernels,
 ): LineSearchResult {
   const c1 = options.c1 ?? 1e-4;
   const c2 = options.c2 ?? 0.9;
@@ -186,9 +185,8 @@ export function lineSearch(
   const maxTrials = options.maxTrials ?? 20;
   const xtol = options.relativeWidth ?? 1e-14;
   const projection = options.projection;
-  const n = x.length;
 
-  const ginit = dot(g0, d);
+  const ginit = kernels.dot(g0, d);
   if (!(ginit < 0) || !Number.isFinite(f0)) {
     return { ok: false, step: 0, value: f0, slope: ginit, evaluations: 0, reason: 'not-descent' };
   }
@@ -208,14 +206,14 @@ export function lineSearch(
     if (evaluations >= maxTrials) {
       return { ok: false, step: stp, value: f, slope: g, evaluations, reason: 'max-trials' };
     }
-    for (let i = 0; i < n; i++) xTrial[i] = x[i] + stp * d[i];
+    kernels.axpyTo(xTrial, x, stp, d);
     if (projection && !projection.projectPositions(xTrial, x)) {
       return { ok: false, step: stp, value: NaN, slope: NaN, evaluations, reason: 'projection-failed' };
     }
     f = fn(xTrial, gTrial);
     evaluations++;
     if (projection) projection.projectGradient(xTrial, gTrial);
-    g = dot(gTrial, d);
+    g = kernels.dot(gTrial, d);
     if (!Number.isFinite(f) || !Number.isFinite(g)) {
       return { ok: false, step: stp, value: f, slope: g, evaluations, reason: 'non-finite' };
     }

@@ -5,7 +5,8 @@
  * cancellation for all four.
  * @module
  */
-import { maxAtomNorm, rmsAtomNorm } from './forces.js';
+import { vectorWorkspace, type VectorEngine, type VectorKernels } from '../linalg/vector-kernels.js';
+import { maxAtomNorm } from './forces.js';
 import { createInitialMatrix, type InitialMatrixForm } from './initial-matrix.js';
 import { lineSearch } from './line-search.js';
 import type { LineSearchResult } from './line-search.js';
@@ -87,6 +88,15 @@ export interface MinimizeOptions {
   dtMax?: number;
   /** What may move (frozen coordinates, fixed distances); applied to every trial point and gradient. */
   projection?: Projection;
+  /**
+   * How the minimizer's own vector work (inner products, updates, the
+   * two-loop recursion) runs: `'wasm'` (default) in WebAssembly SIMD loops
+   * where available, else in JavaScript; `'js'` always in JavaScript. The
+   * two agree to rounding (sums are added in a different order) and each is
+   * deterministic. With `'wasm'` the arrays the objective receives are views
+   * of one WebAssembly memory; they behave as any other `Float64Array`.
+   */
+  engine?: VectorEngine;
   /** Called after each accepted step; returning `false` stops the run with reason `'stopped'`. */
   onIteration?: (info: IterationInfo) => boolean | void;
   /** Stops the run with reason `'aborted'` when aborted (checked before each step). */
@@ -140,12 +150,6 @@ function count(name: string, value: number | undefined, fallback: number, min: n
     throw new RangeError(`${name}: expected an integer ≥ ${min}${infinite ? ' or Infinity' : ''}, got ${show(value)}`);
   }
   return value;
-}
-
-function dot(a: Float64Array, b: Float64Array): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
-  return s;
 }
 
 /**
@@ -206,15 +210,33 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     throw new RangeError(`onIteration: expected a function, got ${show(onIteration)}`);
   }
 
+  const engine = options.engine ?? 'wasm';
+  if (engine !== 'wasm' && engine !== 'js') throw new RangeError(`engine: expected 'wasm' or 'js', got ${show(engine)}`);
+
   const n = x0.length;
-  let x = Float64Array.from(x0);
+  const lbfgs = method === 'lbfgs';
+  // Every vector of the run comes from one workspace, so that the kernels can work on them.
+  const diagonalH0 = lbfgs && (scaling === 'diagonal' || (scaling === 'block' && n % 3 !== 0));
+  const vectorCount =
+    5 + (method === 'fire' ? 1 : 0) + (lbfgs ? 2 * history + 2 : 0) + (diagonalH0 ? 2 : 0) + (preconditioner ? 1 : 0);
+  const workspace = vectorWorkspace(n, vectorCount, engine);
+  const kernels = workspace.kernels;
+  let taken = 0;
+  const take = (): Float64Array => workspace.vectors[taken++];
+  const dot = kernels.dot;
+  const atoms = Math.ceil(n / 3);
+  /** RMS per-atom norm (as `rmsAtomNorm`, on the kernels). */
+  const rmsOf = (v: Float64Array): number => Math.sqrt(dot(v, v) / atoms);
+
+  let x = take();
+  x.set(x0);
   if (projection && !projection.projectPositions(x, x0)) {
     throw new RangeError('x0: the projection could not place the start point on the allowed set');
   }
-  let g = new Float64Array(n);
-  let xT = new Float64Array(n);
-  let gT = new Float64Array(n);
-  const d = new Float64Array(n);
+  let g = take();
+  let xT = take();
+  let gT = take();
+  const d = take();
 
   let evaluations = 1;
   let f = fn(x, g);
@@ -231,33 +253,40 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     initialEnergy,
     energy: f,
     maxForce: maxAtomNorm(g),
-    rmsForce: rmsAtomNorm(g),
+    rmsForce: rmsOf(g),
     x: Float64Array.from(x),
   });
 
   if (!Number.isFinite(f) || !allFinite(g)) return finish('non-finite', false);
   if (maxAtomNorm(g) <= maxForce) return finish('max-force', true);
-  if (rmsForce > 0 && rmsAtomNorm(g) <= rmsForce) return finish('rms-force', true);
+  if (rmsForce > 0 && rmsOf(g) <= rmsForce) return finish('rms-force', true);
 
   // Method state, allocated once.
   const S: Float64Array[] = [];
   const Y: Float64Array[] = [];
-  const rho = new Float64Array(method === 'lbfgs' ? history : 0);
-  const alpha = new Float64Array(method === 'lbfgs' ? history : 0);
-  if (method === 'lbfgs') {
+  const rho = new Float64Array(lbfgs ? history : 0);
+  const alpha = new Float64Array(lbfgs ? history : 0);
+  const empty = new Float64Array(0);
+  let spareS: Float64Array = empty;
+  let spareY: Float64Array = empty;
+  if (lbfgs) {
     for (let k = 0; k < history; k++) {
-      S.push(new Float64Array(n));
-      Y.push(new Float64Array(n));
+      S.push(take());
+      Y.push(take());
     }
+    spareS = take();
+    spareY = take();
   }
   const products = new Float64Array(2);
-  let spareS: Float64Array = new Float64Array(method === 'lbfgs' ? n : 0);
-  let spareY: Float64Array = new Float64Array(method === 'lbfgs' ? n : 0);
   let pairs = 0;
-  const H0 = createInitialMatrix(method === 'lbfgs' ? scaling : 'scalar', method === 'lbfgs' ? n : 0);
+  const H0 = createInitialMatrix(
+    lbfgs ? scaling : 'scalar',
+    lbfgs ? n : 0,
+    diagonalH0 ? { kernels, b: take(), h: take() } : { kernels, b: empty, h: empty },
+  );
   // With a preconditioner, H0 is learned from the pairs in whitened form (z = Lᵀ Π x).
-  const H0z = createInitialMatrix('scalar', 0);
-  const zY = new Float64Array(preconditioner ? n : 0);
+  const H0z = createInitialMatrix('scalar', 0, { kernels, b: empty, h: empty });
+  const zY = preconditioner ? take() : empty;
   let sinceRefresh = 0;
   if (preconditioner && !preconditioner.update(x)) preconditioner = undefined;
   let newest = -1;
@@ -266,7 +295,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
   let cgPrevSlope = 0;
   let cgHaveDirection = false;
   let sdMove = -1;
-  const v = method === 'fire' ? new Float64Array(n) : d;
+  const v = method === 'fire' ? take() : d;
   let dt = dtMax / 10;
   let fireAlpha = 0.1;
   let firePositive = 0;
@@ -286,7 +315,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       stepMax,
       maxTrials: Math.min(20, budget),
       projection,
-    });
+    }, kernels);
   };
 
   /** Whether a line-search result may be taken: Wolfe, or finite with lower f. */
@@ -300,7 +329,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
    */
   const lbfgsDirection = (): void => {
     if (pairs === 0) {
-      for (let i = 0; i < n; i++) d[i] = -g[i];
+      kernels.scaleDot(d, -1, g, g);
       if (preconditioner) {
         // d = −P⁻¹ g: the model's own Newton-like step
         preconditioner.whiten(d, zY);
@@ -308,7 +337,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       }
       return;
     }
-    const oldest = twoLoopFirst(d, g, S, Y, rho, alpha, newest, pairs, history);
+    const oldest = twoLoopFirst(kernels, d, g, S, Y, rho, alpha, newest, pairs, history);
     if (preconditioner) {
       preconditioner.whiten(d, zY);
       H0z.apply(zY);
@@ -316,7 +345,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     } else {
       H0.apply(d);
     }
-    twoLoopSecond(d, S, Y, rho, alpha, oldest, pairs, history);
+    twoLoopSecond(kernels, d, S, Y, rho, alpha, oldest, pairs, history);
   };
 
   /** Teach H0 the pair (s, y), in whitened form when preconditioned. */
@@ -329,9 +358,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     // on molecule-like models the diagonal form learned in z did no better
     // and costs one more triangular sweep per step.
     preconditioner.whiten(y, zY);
-    let zyy = 0;
-    for (let i = 0; i < n; i++) zyy += zY[i] * zY[i];
-    H0z.update(s, zY, sy, zyy);
+    H0z.update(s, zY, sy, dot(zY, zY));
   };
 
   const storePair = (): void => {
@@ -339,7 +366,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     // overwrites the oldest stored one.
     const s = spareS;
     const y = spareY;
-    differences(s, y, xT, x, gT, g, products);
+    kernels.differences(s, y, xT, x, gT, g, products);
     const sy = products[0];
     const yy = products[1];
     if (!(sy > EPS * yy) || !(yy > 0)) return;
@@ -385,7 +412,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       if (preconditioner && projection) projection.projectGradient(x, d);
       let initial = 1;
       if ((pairs === 0 && !preconditioner) || !(dot(g, d) < 0)) {
-        for (let i = 0; i < n; i++) d[i] = -g[i];
+        kernels.scaleDot(d, -1, g, g);
         pairs = 0;
         initial = firstStep(Infinity);
       }
@@ -407,15 +434,14 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       let restart = !cgHaveDirection || cgSinceRestart >= n;
       if (!restart) {
         // d holds the previous direction; gT the previous gradient is in the swapped array.
-        let num = 0;
-        for (let i = 0; i < n; i++) num += g[i] * (g[i] - gT[i]);
+        const num = dot(g, g) - dot(g, gT);
         const beta = Math.max(0, num / dot(gT, gT));
-        for (let i = 0; i < n; i++) d[i] = -g[i] + beta * d[i];
+        kernels.combine(d, -1, g, beta);
         if (!(dot(g, d) < 0) || !Number.isFinite(beta)) restart = true;
       }
       let initial: number;
       if (restart) {
-        for (let i = 0; i < n; i++) d[i] = -g[i];
+        kernels.scaleDot(d, -1, g, g);
         cgSinceRestart = 0;
         initial = cgHaveDirection ? cgPrevStep * (cgPrevSlope / dot(g, d)) : firstStep(Infinity);
       } else {
@@ -446,7 +472,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     while (sdMove > tiny) {
       if (evaluations >= maxEvaluations) return 'budget';
       const a = sdMove / gMax;
-      for (let i = 0; i < n; i++) xT[i] = x[i] - a * g[i];
+      kernels.axpyTo(xT, x, -a, g);
       let fT = NaN;
       if (!projection || projection.projectPositions(xT, x)) {
         fT = fn(xT, gT);
@@ -472,7 +498,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       const vNorm = Math.sqrt(dot(v, v));
       const gNorm = Math.sqrt(dot(g, g));
       const c = gNorm > 0 ? (fireAlpha * vNorm) / gNorm : 0;
-      for (let i = 0; i < n; i++) v[i] = (1 - fireAlpha) * v[i] - c * g[i];
+      kernels.combine(v, -c, g, 1 - fireAlpha);
       if (firePositive > 5) {
         dt = Math.min(dt * 1.1, dtMax);
         fireAlpha *= 0.99;
@@ -485,11 +511,11 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       firePositive = 0;
     }
     // Semi-implicit Euler with unit masses, the move capped at maxStep per atom.
-    for (let i = 0; i < n; i++) v[i] -= dt * g[i];
+    kernels.axpy(v, -dt, g);
     if (projection) projection.projectGradient(x, v);
     const vMax = maxAtomNorm(v) * dt;
     const scale = vMax > maxStep ? maxStep / vMax : 1;
-    for (let i = 0; i < n; i++) xT[i] = x[i] + scale * dt * v[i];
+    kernels.axpyTo(xT, x, scale * dt, v);
     if (projection && !projection.projectPositions(xT, x)) return 'failed';
     const fT = fn(xT, gT);
     evaluations++;
@@ -520,7 +546,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     f = fNew;
     iterations++;
     const mf = maxAtomNorm(g);
-    const rf = rmsAtomNorm(g);
+    const rf = rmsOf(g);
     const more = onIteration ? onIteration({ iteration: iterations, evaluations, energy: f, maxForce: mf, rmsForce: rf, x }) : undefined;
     if (mf <= maxForce) return finish('max-force', true);
     if (rmsForce > 0 && rf <= rmsForce) return finish('rms-force', true);
@@ -536,30 +562,6 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
  * pair-storing closure was deoptimized on nearly every call).
  */
 
-/** s = xNew − xOld, y = gNew − gOld; out[0] = sᵀy, out[1] = yᵀy. */
-function differences(
-  s: Float64Array,
-  y: Float64Array,
-  xNew: Float64Array,
-  xOld: Float64Array,
-  gNew: Float64Array,
-  gOld: Float64Array,
-  out: Float64Array,
-): void {
-  let sy = 0;
-  let yy = 0;
-  for (let i = 0; i < s.length; i++) {
-    const si = xNew[i] - xOld[i];
-    const yi = gNew[i] - gOld[i];
-    s[i] = si;
-    y[i] = yi;
-    sy += si * yi;
-    yy += yi * yi;
-  }
-  out[0] = sy;
-  out[1] = yy;
-}
-
 /**
  * First loop of the two-loop recursion (Nocedal and Wright 2006, Algorithm
  * 7.4) on d = −g, newest pair first, each update fused with the next inner
@@ -567,6 +569,7 @@ function differences(
  * of the oldest pair.
  */
 function twoLoopFirst(
+  kernels: VectorKernels,
   d: Float64Array,
   g: Float64Array,
   S: readonly Float64Array[],
@@ -577,37 +580,25 @@ function twoLoopFirst(
   pairs: number,
   history: number,
 ): number {
-  const n = d.length;
   let k = newest;
-  let acc = 0;
-  let s = S[k];
-  for (let i = 0; i < n; i++) {
-    const v = -g[i];
-    d[i] = v;
-    acc += s[i] * v;
-  }
+  let acc = kernels.scaleDot(d, -1, g, S[k]);
   for (let j = 0; j < pairs; j++) {
     const a = rho[k] * acc;
     alpha[k] = a;
     const y = Y[k];
     if (j === pairs - 1) {
-      for (let i = 0; i < n; i++) d[i] -= a * y[i];
+      kernels.axpy(d, -a, y);
       break;
     }
     k = (k - 1 + history) % history;
-    s = S[k];
-    acc = 0;
-    for (let i = 0; i < n; i++) {
-      const v = d[i] - a * y[i];
-      d[i] = v;
-      acc += s[i] * v;
-    }
+    acc = kernels.axpyDot(d, -a, y, S[k]);
   }
   return k;
 }
 
 /** Second loop of the two-loop recursion, oldest pair first, fused like the first. */
 function twoLoopSecond(
+  kernels: VectorKernels,
   d: Float64Array,
   S: readonly Float64Array[],
   Y: readonly Float64Array[],
@@ -617,26 +608,17 @@ function twoLoopSecond(
   pairs: number,
   history: number,
 ): void {
-  const n = d.length;
   let k = oldest;
-  let y = Y[k];
-  let acc = 0;
-  for (let i = 0; i < n; i++) acc += y[i] * d[i];
+  let acc = kernels.dot(Y[k], d);
   for (let j = 0; j < pairs; j++) {
     const c = alpha[k] - rho[k] * acc;
     const s = S[k];
     if (j === pairs - 1) {
-      for (let i = 0; i < n; i++) d[i] += c * s[i];
+      kernels.axpy(d, c, s);
       break;
     }
     k = (k + 1) % history;
-    y = Y[k];
-    acc = 0;
-    for (let i = 0; i < n; i++) {
-      const v = d[i] + c * s[i];
-      d[i] = v;
-      acc += y[i] * v;
-    }
+    acc = kernels.axpyDot(d, c, s, Y[k]);
   }
 }
 

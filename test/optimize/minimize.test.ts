@@ -302,6 +302,35 @@ describe('minimize: stopping, caps and failures', () => {
     );
     expect(() => minimize(rosenbrock, new Float64Array(0))).toThrow(new RangeError('x0: expected a non-empty Float64Array, got length 0'));
     expect(() => minimize(rosenbrock, new Float64Array([1, NaN]))).toThrow(new RangeError('x0[1]: expected a finite number, got NaN'));
+    expect(() => minimize(rosenbrock, x0, { engine: 'gpu' as 'js' })).toThrow(new RangeError(`engine: expected 'wasm' or 'js', got "gpu"`));
+  });
+});
+
+describe("minimize: the 'wasm' and 'js' engines", () => {
+  // The same formulas with sums in a different order: paths agree to rounding
+  // at first, and every method converges under both to the same minimum.
+  for (const method of METHODS) {
+    it(`${method}: both converge on the 40-atom chain to the same energy, and each is deterministic`, () => {
+      const { fn, start: x0 } = chainModel(40, 11);
+      const options = { method, maxForce: 1e-3, maxIterations: 20000 };
+      const w = minimize(fn, x0, { ...options, engine: 'wasm' });
+      const j = minimize(fn, x0, { ...options, engine: 'js' });
+      expect(w.converged).toBe(true);
+      expect(j.converged).toBe(true);
+      expectHonest(fn, w);
+      expectHonest(fn, j);
+      expect(Math.abs(w.energy - j.energy)).toBeLessThan(1e-6 * Math.max(1, Math.abs(j.energy)));
+      const again = minimize(fn, x0, { ...options, engine: 'wasm' });
+      expect(again.evaluations).toBe(w.evaluations);
+      expect(Array.from(again.x)).toEqual(Array.from(w.x));
+    });
+  }
+  it('the first L-BFGS steps agree to rounding', () => {
+    const { fn, start: x0 } = chainModel(40, 11);
+    const w = minimize(fn, x0, { maxIterations: 5, engine: 'wasm' });
+    const j = minimize(fn, x0, { maxIterations: 5, engine: 'js' });
+    expect(w.evaluations).toBe(j.evaluations);
+    for (let i = 0; i < x0.length; i++) expect(Math.abs(w.x[i] - j.x[i])).toBeLessThan(1e-10);
   });
 });
 
