@@ -32,6 +32,17 @@ export class BlockCholesky {
   readonly #blocks: Float64Array;
   /** 9 numbers per position: the lower-triangular Cholesky factor of the pivot block (upper part zero). */
   readonly #pivots: Float64Array;
+  /** 1 / the diagonal of each pivot factor (3 per position), so the sweeps multiply instead of divide. */
+  readonly #inverse: Float64Array;
+  /**
+   * The fill updates of each column, found once: for column p, for each
+   * pair u ≤ t of its stored blocks (in the order the factorization visits
+   * them), the block they update (−1 − position for a diagonal block).
+   */
+  readonly #targets: Int32Array;
+  /** The `pairs` array last given to {@link factor} and where each of its blocks goes (see there). */
+  #placedPairs: Int32Array | null = null;
+  #placement: Int32Array = new Int32Array(0);
   /** Working diagonal blocks (9 per position). */
   readonly #diagonal: Float64Array;
   /** (column position, row position) → block index, for the fill updates. */
@@ -107,6 +118,47 @@ export class BlockCholesky {
     this.#diagonal = new Float64Array(9 * atoms);
     this.#slot = slot;
     this.#work = new Float64Array(3 * atoms);
+    this.#inverse = new Float64Array(3 * atoms);
+    let updates = 0;
+    for (let p = 0; p < atoms; p++) {
+      const c = start[p + 1] - start[p];
+      updates += (c * (c + 1)) / 2;
+    }
+    const targets = new Int32Array(updates);
+    let u = 0;
+    for (let p = 0; p < atoms; p++) {
+      for (let t = start[p]; t < start[p + 1]; t++) {
+        const i = rows[t];
+        for (let v = start[p]; v <= t; v++) {
+          const k = rows[v];
+          targets[u++] = i === k ? -1 - i : (slot.get(k * atoms + i) as number);
+        }
+      }
+    }
+    this.#targets = targets;
+  }
+
+  /**
+   * Where each block of `pairs` goes in L: slot + 1 when stored as given,
+   * −(slot + 1) when stored transposed, 0 for i = j. Cached for the last
+   * `pairs` array (a preconditioner refills the same pattern many times).
+   */
+  #place(pairs: Int32Array): Int32Array {
+    if (this.#placedPairs === pairs && this.#placement.length === pairs.length >> 1) return this.#placement;
+    const atoms = this.atoms;
+    const placement = new Int32Array(pairs.length >> 1);
+    for (let q = 0; 2 * q + 1 < pairs.length; q++) {
+      const i = pairs[2 * q];
+      const j = pairs[2 * q + 1];
+      if (i === j) continue;
+      const pi = this.position[i];
+      const pj = this.position[j];
+      // row = later position, column = earlier one
+      placement[q] = pi > pj ? 1 + (this.#slot.get(pj * atoms + pi) as number) : -1 - (this.#slot.get(pi * atoms + pj) as number);
+    }
+    this.#placedPairs = pairs;
+    this.#placement = placement;
+    return placement;
   }
 
   /** Stored blocks of L (a measure of fill). */
@@ -134,23 +186,23 @@ export class BlockCholesky {
       for (let e = 0; e < 9; e++) D[9 * p + e] = diagonal[9 * a + e];
     }
     // Place each off-diagonal block at (column = earlier position, row = later position).
-    for (let q = 0; 2 * q + 1 < pairs.length; q++) {
-      const i = pairs[2 * q];
-      const j = pairs[2 * q + 1];
-      if (i === j) continue;
-      const pi = this.position[i];
-      const pj = this.position[j];
+    const placement = this.#place(pairs);
+    for (let q = 0; q < placement.length; q++) {
+      const where = placement[q];
       const o = 9 * q;
-      if (pi > pj) {
+      if (where > 0) {
         // row i, column j: block (i, j) as given
-        const s = 9 * (this.#slot.get(pj * atoms + pi) as number);
+        const s = 9 * (where - 1);
         for (let e = 0; e < 9; e++) B[s + e] += offDiagonal[o + e];
-      } else {
+      } else if (where < 0) {
         // row j, column i: the transpose of block (i, j)
-        const s = 9 * (this.#slot.get(pi * atoms + pj) as number);
+        const s = 9 * (-1 - where);
         for (let r = 0; r < 3; r++) for (let c = 0; c < 3; c++) B[s + 3 * r + c] += offDiagonal[o + 3 * c + r];
       }
     }
+    const inverse = this.#inverse;
+    const targets = this.#targets;
+    let next = 0;
     for (let p = 0; p < atoms; p++) {
       // pivot: C C^T = D_p
       const d = 9 * p;
@@ -169,32 +221,32 @@ export class BlockCholesky {
       C[d] = c00; C[d + 1] = 0; C[d + 2] = 0;
       C[d + 3] = c10; C[d + 4] = c11; C[d + 5] = 0;
       C[d + 6] = c20; C[d + 7] = c21; C[d + 8] = c22;
+      const i00 = 1 / c00, i11 = 1 / c11, i22 = 1 / c22;
+      inverse[3 * p] = i00; inverse[3 * p + 1] = i11; inverse[3 * p + 2] = i22;
       // L_ip = W_ip C^{-T}: solve X C^T = W row by row (forward substitution on each row)
       for (let t = start[p]; t < start[p + 1]; t++) {
         const o = 9 * t;
         for (let r = 0; r < 3; r++) {
           const w0 = B[o + 3 * r], w1 = B[o + 3 * r + 1], w2 = B[o + 3 * r + 2];
-          const x0 = w0 / c00;
-          const x1 = (w1 - c10 * x0) / c11;
-          const x2 = (w2 - c20 * x0 - c21 * x1) / c22;
+          const x0 = w0 * i00;
+          const x1 = (w1 - c10 * x0) * i11;
+          const x2 = (w2 - c20 * x0 - c21 * x1) * i22;
           B[o + 3 * r] = x0; B[o + 3 * r + 1] = x1; B[o + 3 * r + 2] = x2;
         }
       }
       // Update: W_ik -= L_ip L_kp^T for rows i ≥ k of column p.
       for (let t = start[p]; t < start[p + 1]; t++) {
-        const i = rows[t];
         const oi = 9 * t;
         for (let u = start[p]; u <= t; u++) {
-          const k = rows[u];
           const ok = 9 * u;
-          let target: number;
-          if (i === k) target = -1;
-          else target = 9 * (this.#slot.get(k * atoms + i) as number);
+          const target = targets[next++];
+          // W −= L_ip L_kpᵀ into a diagonal block (target < 0) or an off-diagonal one
+          const M = target < 0 ? D : B;
+          const m = target < 0 ? 9 * (-1 - target) : 9 * target;
           for (let r = 0; r < 3; r++) {
+            const a0 = B[oi + 3 * r], a1 = B[oi + 3 * r + 1], a2 = B[oi + 3 * r + 2];
             for (let c = 0; c < 3; c++) {
-              const v = B[oi + 3 * r] * B[ok + 3 * c] + B[oi + 3 * r + 1] * B[ok + 3 * c + 1] + B[oi + 3 * r + 2] * B[ok + 3 * c + 2];
-              if (target < 0) D[9 * i + 3 * r + c] -= v;
-              else B[target + 3 * r + c] -= v;
+              M[m + 3 * r + c] -= a0 * B[ok + 3 * c] + a1 * B[ok + 3 * c + 1] + a2 * B[ok + 3 * c + 2];
             }
           }
         }
@@ -216,11 +268,12 @@ export class BlockCholesky {
     const B = this.#blocks;
     const start = this.#start;
     const rows = this.#rows;
+    const inv = this.#inverse;
     for (let p = 0; p < atoms; p++) {
       const d = 9 * p;
-      const w0 = out[3 * p] / C[d];
-      const w1 = (out[3 * p + 1] - C[d + 3] * w0) / C[d + 4];
-      const w2 = (out[3 * p + 2] - C[d + 6] * w0 - C[d + 7] * w1) / C[d + 8];
+      const w0 = out[3 * p] * inv[3 * p];
+      const w1 = (out[3 * p + 1] - C[d + 3] * w0) * inv[3 * p + 1];
+      const w2 = (out[3 * p + 2] - C[d + 6] * w0 - C[d + 7] * w1) * inv[3 * p + 2];
       out[3 * p] = w0; out[3 * p + 1] = w1; out[3 * p + 2] = w2;
       for (let t = start[p]; t < start[p + 1]; t++) {
         const o = 9 * t;
@@ -235,6 +288,7 @@ export class BlockCholesky {
   /** out = Πᵀ L⁻ᵀ w (w in elimination order, out by atom); `w` is used as scratch and left changed. */
   unwhiten(w: Float64Array, out: Float64Array): void {
     const atoms = this.atoms;
+    const inv = this.#inverse;
     const C = this.#pivots;
     const B = this.#blocks;
     const start = this.#start;
@@ -250,9 +304,9 @@ export class BlockCholesky {
         b2 -= B[o + 2] * v0 + B[o + 5] * v1 + B[o + 8] * v2;
       }
       const d = 9 * p;
-      const x2 = b2 / C[d + 8];
-      const x1 = (b1 - C[d + 7] * x2) / C[d + 4];
-      const x0 = (b0 - C[d + 3] * x1 - C[d + 6] * x2) / C[d];
+      const x2 = b2 * inv[3 * p + 2];
+      const x1 = (b1 - C[d + 7] * x2) * inv[3 * p + 1];
+      const x0 = (b0 - C[d + 3] * x1 - C[d + 6] * x2) * inv[3 * p];
       w[3 * p] = x0; w[3 * p + 1] = x1; w[3 * p + 2] = x2;
     }
     for (let p = 0; p < atoms; p++) {

@@ -126,7 +126,8 @@ export function stiffTermPreconditioner(
         const b = gradAtoms[v];
         // block (row min(a,b), col max(a,b))
         const o = 9 * q;
-        const [ru, rv] = a < b ? [u, v] : [v, u];
+        const ru = a < b ? u : v;
+        const rv = a < b ? v : u;
         for (let r = 0; r < 3; r++) for (let c = 0; c < 3; c++) off[o + 3 * r + c] += k * grad[3 * ru + r] * grad[3 * rv + c];
       }
     }
@@ -135,7 +136,8 @@ export function stiffTermPreconditioner(
   const assemble = (x: Float64Array): boolean => {
     diagonal.fill(0);
     off.fill(0);
-    parts.forEach((part, pi) => {
+    for (let pi = 0; pi < parts.length; pi++) {
+      const part = parts[pi];
       const s = slots[pi];
       const A = part.atoms;
       for (let r = 0; r < part.k.length; r++) {
@@ -144,7 +146,7 @@ export function stiffTermPreconditioner(
         if (part.kind === 'bond') {
           const i = A[2 * r], j = A[2 * r + 1];
           let dx = x[3 * j] - x[3 * i], dy = x[3 * j + 1] - x[3 * i + 1], dz = x[3 * j + 2] - x[3 * i + 2];
-          const len = Math.hypot(dx, dy, dz);
+          const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
           if (!(len > 0)) continue;
           dx /= len; dy /= len; dz /= len;
           gradAtoms[0] = i; gradAtoms[1] = j;
@@ -155,12 +157,13 @@ export function stiffTermPreconditioner(
           const i = A[3 * r], j = A[3 * r + 1], l = A[3 * r + 2];
           const ax = x[3 * i] - x[3 * j], ay = x[3 * i + 1] - x[3 * j + 1], az = x[3 * i + 2] - x[3 * j + 2];
           const bx = x[3 * l] - x[3 * j], by = x[3 * l + 1] - x[3 * j + 1], bz = x[3 * l + 2] - x[3 * j + 2];
-          const ra = Math.hypot(ax, ay, az), rb = Math.hypot(bx, by, bz);
+          const ra = Math.sqrt(ax * ax + ay * ay + az * az), rb = Math.sqrt(bx * bx + by * by + bz * bz);
           if (!(ra > 0 && rb > 0)) continue;
           const ux = ax / ra, uy = ay / ra, uz = az / ra;
           const vx = bx / rb, vy = by / rb, vz = bz / rb;
           const cos = ux * vx + uy * vy + uz * vz;
-          const sin = Math.hypot(uy * vz - uz * vy, uz * vx - ux * vz, ux * vy - uy * vx);
+          const cx = uy * vz - uz * vy, cy = uz * vx - ux * vz, cz = ux * vy - uy * vx;
+          const sin = Math.sqrt(cx * cx + cy * cy + cz * cz);
           // ∇_i cos θ = (v − cos u)/|a|, ∇_k cos θ = (u − cos v)/|b|; ∇θ = −∇cos θ / sin θ.
           let scale: number;
           if (part.kind === 'cos') scale = 1;
@@ -175,7 +178,7 @@ export function stiffTermPreconditioner(
           addOuter(k, 3, s, 3 * r);
         }
       }
-    });
+    }
     let trace = 0;
     let moving = 0;
     for (let a = 0; a < atomCount; a++) {
