@@ -17,6 +17,8 @@
  * @module
  */
 
+import { sweepArrays, type SweepArrays } from './block-sweeps.js';
+
 /** A factorization with a fixed block pattern; refill and refactor it as often as needed. */
 export class BlockCholesky {
   /** Atoms (block rows). */
@@ -48,13 +50,18 @@ export class BlockCholesky {
   /** (column position, row position) → block index, for the fill updates. */
   readonly #slot: Map<number, number>;
   readonly #work: Float64Array;
+  /** The WebAssembly sweeps and the arrays they share with this object, or null for the JavaScript sweeps. */
+  readonly #sweeps: SweepArrays | null;
 
   /**
    * @param atoms - number of atoms N (the matrix is 3N × 3N).
    * @param pairs - `2 × P` atom pairs whose off-diagonal block may be non-zero
    *   (order and repeats do not matter; i = j pairs are ignored).
+   * @param engine - `'wasm'` (default): the sweeps run as WebAssembly loops
+   *   where available (src/linalg/block-sweeps.ts; identical results);
+   *   `'js'`: in JavaScript.
    */
-  constructor(atoms: number, pairs: Int32Array) {
+  constructor(atoms: number, pairs: Int32Array, engine: 'wasm' | 'js' = 'wasm') {
     this.atoms = atoms;
     const adjacency: Set<number>[] = Array.from({ length: atoms }, () => new Set<number>());
     for (let p = 0; p + 1 < pairs.length; p += 2) {
@@ -109,16 +116,23 @@ export class BlockCholesky {
         slot.set(p * atoms + list[t], start[p] + t);
       }
     }
-    this.order = order;
+    const sweeps = engine === 'wasm' && atoms > 0 ? sweepArrays(atoms, rows.length) : null;
+    this.#sweeps = sweeps;
+    if (sweeps !== null) {
+      sweeps.order.set(order);
+      sweeps.start.set(start);
+      sweeps.rows.set(rows);
+    }
+    this.order = sweeps?.order ?? order;
     this.position = position;
-    this.#start = start;
-    this.#rows = rows;
-    this.#blocks = new Float64Array(9 * rows.length);
-    this.#pivots = new Float64Array(9 * atoms);
+    this.#start = sweeps?.start ?? start;
+    this.#rows = sweeps?.rows ?? rows;
+    this.#blocks = sweeps?.blocks ?? new Float64Array(9 * rows.length);
+    this.#pivots = sweeps?.pivots ?? new Float64Array(9 * atoms);
     this.#diagonal = new Float64Array(9 * atoms);
     this.#slot = slot;
     this.#work = new Float64Array(3 * atoms);
-    this.#inverse = new Float64Array(3 * atoms);
+    this.#inverse = sweeps?.inverse ?? new Float64Array(3 * atoms);
     let updates = 0;
     for (let p = 0; p < atoms; p++) {
       const c = start[p + 1] - start[p];
@@ -257,6 +271,13 @@ export class BlockCholesky {
 
   /** out = L⁻¹ Π v (out in elimination order); `out` may not be `v`. */
   whiten(v: Float64Array, out: Float64Array): void {
+    const sweeps = this.#sweeps;
+    if (sweeps !== null) {
+      sweeps.vin.set(v);
+      sweeps.whiten();
+      out.set(sweeps.vout);
+      return;
+    }
     const atoms = this.atoms;
     for (let p = 0; p < atoms; p++) {
       const a = this.order[p];
@@ -285,8 +306,15 @@ export class BlockCholesky {
     }
   }
 
-  /** out = Πᵀ L⁻ᵀ w (w in elimination order, out by atom); `w` is used as scratch and left changed. */
+  /** out = Πᵀ L⁻ᵀ w (w in elimination order, out by atom); `w` may be used as scratch and left changed. */
   unwhiten(w: Float64Array, out: Float64Array): void {
+    const sweeps = this.#sweeps;
+    if (sweeps !== null) {
+      sweeps.vin.set(w);
+      sweeps.unwhiten();
+      out.set(sweeps.vout);
+      return;
+    }
     const atoms = this.atoms;
     const inv = this.#inverse;
     const C = this.#pivots;

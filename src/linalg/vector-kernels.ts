@@ -51,20 +51,36 @@ export interface VectorKernels {
     gOld: Float64Array,
     out: Float64Array,
   ): void;
-  /** v ← v ⊙ h (elementwise). */
-  multiply(v: Float64Array, h: Float64Array): void;
+  /** v ← c (v ⊙ h) (elementwise product, scaled). */
+  multiplyScaled(v: Float64Array, h: Float64Array, c: number): void;
   /** v ← c v. */
   scale(v: Float64Array, c: number): void;
   /** Σ bᵢ sᵢ tᵢ. */
   weightedDot(b: Float64Array, s: Float64Array, t: Float64Array): number;
   /**
-   * The diagonal BFGS update of b (see `initial-matrix.ts`):
-   * bᵢ ← bᵢ + yᵢ²·invSy − (bᵢsᵢ)²·invSBs, replaced by `base` where the result
-   * is not > `floor` or not finite; returns Σ yᵢ² / bᵢ (new bᵢ).
+   * The diagonal BFGS update of the diagonal `scale`·b (see
+   * `initial-matrix.ts`): with eᵢ = scale·bᵢ,
+   * bᵢ ← eᵢ + yᵢ²·invSy − (eᵢsᵢ)²·invSBs, replaced by `base` where the result
+   * is not > `floor` or not finite, and hᵢ ← 1 / bᵢ; returns Σ yᵢ² / bᵢ (new bᵢ).
    */
-  diagonalUpdate(b: Float64Array, s: Float64Array, y: Float64Array, invSy: number, invSBs: number, floor: number, base: number): number;
-  /** b ← c b and h ← 1 / b (the new b). */
-  scaleAndInvert(b: Float64Array, h: Float64Array, c: number): void;
+  diagonalUpdate(
+    b: Float64Array,
+    h: Float64Array,
+    s: Float64Array,
+    y: Float64Array,
+    scale: number,
+    invSy: number,
+    invSBs: number,
+    floor: number,
+    base: number,
+  ): number;
+  /**
+   * out[0] = the largest Euclidean norm of the triples (v₃ᵢ, v₃ᵢ₊₁, v₃ᵢ₊₂)
+   * (NaN when v holds NaN), out[1] = their RMS, sqrt(Σ vᵢ² / ⌈n/3⌉); a
+   * trailing group of 1 or 2 counts as a triple (as `maxAtomNorm` and
+   * `rmsAtomNorm` in src/optimize/forces.ts).
+   */
+  atomNorms(v: Float64Array, out: Float64Array): void;
 }
 
 /** Vectors of one length and the kernels that work on them. */
@@ -125,8 +141,8 @@ export const jsKernels: VectorKernels = {
     out[0] = sy;
     out[1] = yy;
   },
-  multiply(v, h) {
-    for (let i = 0; i < v.length; i++) v[i] *= h[i];
+  multiplyScaled(v, h, c) {
+    for (let i = 0; i < v.length; i++) v[i] = c * (v[i] * h[i]);
   },
   scale(v, c) {
     for (let i = 0; i < v.length; i++) v[i] = c * v[i];
@@ -136,26 +152,58 @@ export const jsKernels: VectorKernels = {
     for (let i = 0; i < b.length; i++) r += b[i] * s[i] * t[i];
     return r;
   },
-  diagonalUpdate(b, s, y, invSy, invSBs, floor, base) {
-    let r = 0;
-    for (let i = 0; i < b.length; i++) {
-      const bs = b[i] * s[i];
-      const yi = y[i];
-      const next = b[i] + yi * yi * invSy - bs * bs * invSBs;
-      const v = next > floor && next < Infinity ? next : base;
-      b[i] = v;
-      r += (yi * yi) / v;
-    }
-    return r;
+  diagonalUpdate(b, h, s, y, scale, invSy, invSBs, floor, base) {
+    return diagonalTail(b, h, s, y, scale, invSy, invSBs, floor, base, 0, b.length);
   },
-  scaleAndInvert(b, h, c) {
-    for (let i = 0; i < b.length; i++) {
-      const v = b[i] * c;
-      b[i] = v;
-      h[i] = 1 / v;
-    }
+  atomNorms(v, out) {
+    atomNormsTail(v, out, 0, 0, 0);
   },
 };
+
+/** The diagonal update over entries [from, to); returns its part of Σ yᵢ² / bᵢ. */
+function diagonalTail(
+  b: Float64Array,
+  h: Float64Array,
+  s: Float64Array,
+  y: Float64Array,
+  scale: number,
+  invSy: number,
+  invSBs: number,
+  floor: number,
+  base: number,
+  from: number,
+  to: number,
+): number {
+  let r = 0;
+  for (let i = from; i < to; i++) {
+    const e = scale * b[i];
+    const es = e * s[i];
+    const yy = y[i] * y[i];
+    const next = e + yy * invSy - es * es * invSBs;
+    const v = next > floor && next < Infinity ? next : base;
+    b[i] = v;
+    h[i] = 1 / v;
+    r += yy / v;
+  }
+  return r;
+}
+
+/** Finishes {@link VectorKernels.atomNorms} from triple `from` on, given the largest square and the sum so far. */
+function atomNormsTail(v: Float64Array, out: Float64Array, from: number, largest: number, sum: number): void {
+  const n = v.length;
+  let m = largest;
+  let t = sum;
+  for (let i = from; i < n; i += 3) {
+    const a = v[i];
+    const b = i + 1 < n ? v[i + 1] : 0;
+    const c = i + 2 < n ? v[i + 2] : 0;
+    const q = a * a + b * b + c * c;
+    m = q !== q || m !== m ? NaN : Math.max(m, q);
+    t += q;
+  }
+  out[0] = Math.sqrt(m);
+  out[1] = n === 0 ? 0 : Math.sqrt(t / Math.ceil(n / 3));
+}
 
 // ---- the WebAssembly engine ----
 
@@ -289,8 +337,9 @@ const STREAMS: Stream[] = [
     ],
   },
   {
-    name: 'multiply', pointers: 2, scalars: 0, sums: 0, temps: 0,
-    step: (c, o) => [...c.address(0), ...c.load(0, o), ...c.load(1, o), ...mul, ...c.store(o)],
+    // (v, h; c): v ← c (v h)
+    name: 'multiplyScaled', pointers: 2, scalars: 1, sums: 0, temps: 0,
+    step: (c, o) => [...c.address(0), ...c.scalar(0), ...c.load(0, o), ...c.load(1, o), ...mul, ...mul, ...c.store(o)],
   },
   {
     name: 'scale', pointers: 1, scalars: 1, sums: 0, temps: 0,
@@ -301,29 +350,23 @@ const STREAMS: Stream[] = [
     step: (c, o, h) => accumulate(c, 0, h, [...c.load(0, o), ...c.load(1, o), ...mul, ...c.load(2, o), ...mul]),
   },
   {
-    // (b, s, y; invSy, invSBs, floor, base, infinity)
-    name: 'diagonalUpdate', pointers: 3, scalars: 5, sums: 1, temps: 3,
+    // (b, h, s, y; scale, invSy, invSBs, floor, base, one, infinity)
+    name: 'diagonalUpdate', pointers: 4, scalars: 7, sums: 1, temps: 4,
     step: (c, o, h) => [
-      // t0 = b s, t1 = y y
-      ...c.load(0, o), ...c.load(1, o), ...mul, ...set(c.temp(0)),
-      ...c.load(2, o), ...c.load(2, o), ...mul, ...set(c.temp(1)),
-      // t2 = b + t1 invSy − t0 t0 invSBs
-      ...c.load(0, o), ...get(c.temp(1)), ...c.scalar(0), ...mul, ...add,
-      ...get(c.temp(0)), ...get(c.temp(0)), ...mul, ...c.scalar(1), ...mul, ...sub, ...set(c.temp(2)),
+      // t3 = scale b, t0 = t3 s, t1 = y y
+      ...c.scalar(0), ...c.load(0, o), ...mul, ...set(c.temp(3)),
+      ...get(c.temp(3)), ...c.load(2, o), ...mul, ...set(c.temp(0)),
+      ...c.load(3, o), ...c.load(3, o), ...mul, ...set(c.temp(1)),
+      // t2 = t3 + t1 invSy − t0 t0 invSBs
+      ...get(c.temp(3)), ...get(c.temp(1)), ...c.scalar(1), ...mul, ...add,
+      ...get(c.temp(0)), ...get(c.temp(0)), ...mul, ...c.scalar(2), ...mul, ...sub, ...set(c.temp(2)),
       // t2 = (t2 > floor && t2 < ∞) ? t2 : base
-      ...get(c.temp(2)), ...c.scalar(3),
-      ...get(c.temp(2)), ...c.scalar(2), ...op.f64x2Gt, ...get(c.temp(2)), ...c.scalar(4), ...op.f64x2Lt, ...op.v128And,
+      ...get(c.temp(2)), ...c.scalar(4),
+      ...get(c.temp(2)), ...c.scalar(3), ...op.f64x2Gt, ...get(c.temp(2)), ...c.scalar(6), ...op.f64x2Lt, ...op.v128And,
       ...op.v128Bitselect, ...set(c.temp(2)),
       ...c.address(0), ...get(c.temp(2)), ...c.store(o),
+      ...c.address(1), ...c.scalar(5), ...get(c.temp(2)), ...div, ...c.store(o),
       ...accumulate(c, 0, h, [...get(c.temp(1)), ...get(c.temp(2)), ...div]),
-    ],
-  },
-  {
-    // (b, h; c, one): b ← c b, h ← 1 / b
-    name: 'scaleAndInvert', pointers: 2, scalars: 2, sums: 0, temps: 1,
-    step: (c, o) => [
-      ...c.address(0), ...c.load(0, o), ...c.scalar(0), ...mul, ...tee(c.temp(0)), ...c.store(o),
-      ...c.address(1), ...c.scalar(1), ...get(c.temp(0)), ...div, ...c.store(o),
     ],
   },
 ];
@@ -337,11 +380,14 @@ interface WasmExports {
   axpyTo(out: number, a: number, b: number, bytes: number, c: number): void;
   combine(d: number, g: number, bytes: number, a: number, b: number): void;
   differences(s: number, y: number, xn: number, xo: number, gn: number, go: number, bytes: number): number;
-  multiply(v: number, h: number, bytes: number): void;
+  multiplyScaled(v: number, h: number, bytes: number, c: number): void;
   scale(v: number, bytes: number, c: number): void;
   weightedDot(b: number, s: number, t: number, bytes: number): number;
-  diagonalUpdate(b: number, s: number, y: number, bytes: number, invSy: number, invSBs: number, floor: number, base: number, inf: number): number;
-  scaleAndInvert(b: number, h: number, bytes: number, c: number, one: number): void;
+  diagonalUpdate(
+    b: number, h: number, s: number, y: number, bytes: number,
+    scale: number, invSy: number, invSBs: number, floor: number, base: number, one: number, inf: number,
+  ): number;
+  atomNorms(v: number, bytes: number): number;
 }
 
 /** The part of the WebAssembly JavaScript API used here (declared locally: the project's `lib` has no DOM types). */
@@ -352,13 +398,38 @@ interface WasmApi {
 }
 const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
 
+/**
+ * (v, bytes) → the largest of x² + y² + z² over the triples in [0, bytes)
+ * (NaN propagates through f64.max), with Σ stored as f64 at address 8.
+ */
+function atomNormsFunction(): WasmFunction {
+  const V = 0, BYTES = 1, AT = 2, LARGEST = 3, SUM = 4, SQ = 5, A = 6;
+  const square = (offset: number): number[] => [...get(V), ...get(AT), ...op.i32Add, ...op.f64Load(offset), ...op.localTee(A), ...get(A), ...op.f64Mul];
+  return {
+    name: 'atomNorms',
+    params: [I32, I32],
+    results: [F64],
+    locals: [I32, F64, F64, F64, F64],
+    body: [
+      ...op.block, ...get(BYTES), ...op.i32Eqz, ...op.brIf(0), ...op.loop,
+      ...square(0), ...square(8), ...op.f64Add, ...square(16), ...op.f64Add, ...set(SQ),
+      ...get(LARGEST), ...get(SQ), ...op.f64Max, ...set(LARGEST),
+      ...get(SUM), ...get(SQ), ...op.f64Add, ...set(SUM),
+      ...get(AT), ...op.i32Const(24), ...op.i32Add, ...op.localTee(AT), ...get(BYTES), ...op.i32LtU, ...op.brIf(0),
+      ...op.end, ...op.end,
+      ...op.i32Const(8), ...get(SUM), ...op.f64Store(0),
+      ...get(LARGEST),
+    ],
+  };
+}
+
 let compiled: object | null | undefined;
 
 /** The compiled module, or null where WebAssembly (with SIMD) is not available. */
 function wasmModule(): object | null {
   if (compiled !== undefined) return compiled;
   try {
-    compiled = wasm === undefined ? null : new wasm.Module(encodeModule(STREAMS.map(stream)));
+    compiled = wasm === undefined ? null : new wasm.Module(encodeModule([...STREAMS.map(stream), atomNormsFunction()]));
   } catch {
     compiled = null;
   }
@@ -392,6 +463,8 @@ function wasmWorkspace(api: WasmApi, module: object, n: number, count: number): 
   const second = new Float64Array(buffer, 8, 1);
   const body = n & ~3; // done in WebAssembly; the rest here
   const bytes = 8 * body;
+  const triples = n - (n % 3); // atomNorms: whole triples in WebAssembly
+  const tripleBytes = 8 * triples;
   const kernels: VectorKernels = {
     engine: 'wasm',
     dot(a, b) {
@@ -443,9 +516,9 @@ function wasmWorkspace(api: WasmApi, module: object, n: number, count: number): 
       out[0] = sy;
       out[1] = yy;
     },
-    multiply(v, h) {
-      w.multiply(v.byteOffset, h.byteOffset, bytes);
-      for (let i = body; i < n; i++) v[i] *= h[i];
+    multiplyScaled(v, h, c) {
+      w.multiplyScaled(v.byteOffset, h.byteOffset, bytes, c);
+      for (let i = body; i < n; i++) v[i] = c * (v[i] * h[i]);
     },
     scale(v, c) {
       w.scale(v.byteOffset, bytes, c);
@@ -456,25 +529,13 @@ function wasmWorkspace(api: WasmApi, module: object, n: number, count: number): 
       for (let i = body; i < n; i++) r += b[i] * s[i] * t[i];
       return r;
     },
-    diagonalUpdate(b, s, y, invSy, invSBs, floor, base) {
-      let r = w.diagonalUpdate(b.byteOffset, s.byteOffset, y.byteOffset, bytes, invSy, invSBs, floor, base, Infinity);
-      for (let i = body; i < n; i++) {
-        const bs = b[i] * s[i];
-        const yi = y[i];
-        const next = b[i] + yi * yi * invSy - bs * bs * invSBs;
-        const v = next > floor && next < Infinity ? next : base;
-        b[i] = v;
-        r += (yi * yi) / v;
-      }
-      return r;
+    diagonalUpdate(b, h, s, y, scale, invSy, invSBs, floor, base) {
+      const r = w.diagonalUpdate(b.byteOffset, h.byteOffset, s.byteOffset, y.byteOffset, bytes, scale, invSy, invSBs, floor, base, 1, Infinity);
+      return r + diagonalTail(b, h, s, y, scale, invSy, invSBs, floor, base, body, n);
     },
-    scaleAndInvert(b, h, c) {
-      w.scaleAndInvert(b.byteOffset, h.byteOffset, bytes, c, 1);
-      for (let i = body; i < n; i++) {
-        const v = b[i] * c;
-        b[i] = v;
-        h[i] = 1 / v;
-      }
+    atomNorms(v, out) {
+      const largest = w.atomNorms(v.byteOffset, tripleBytes);
+      atomNormsTail(v, out, triples, largest, second[0]);
     },
   };
   return { vectors, kernels };

@@ -79,7 +79,10 @@ function scalarMatrix(kernels: VectorKernels): InitialMatrix {
 }
 
 function diagonalMatrix(kernels: VectorKernels, b: Float64Array, h: Float64Array): InitialMatrix {
+  // B0 = c·diag(b), H0 = diag(h)/c with h = 1/b: the scaling is kept apart so
+  // that an update is two passes over the vectors
   let fresh = true;
+  let c = 1;
   return {
     reset() {
       fresh = true;
@@ -88,15 +91,17 @@ function diagonalMatrix(kernels: VectorKernels, b: Float64Array, h: Float64Array
       const base = yy / sy;
       if (fresh) {
         b.fill(base);
+        c = 1;
         fresh = false;
       }
-      // bᵢ ← bᵢ + yᵢ²/sᵀy − (bᵢsᵢ)²/sᵀBs, kept > 1e-12 base and finite
-      const sBs = kernels.weightedDot(b, s, s);
-      const yHy = kernels.diagonalUpdate(b, s, y, 1 / sy, 1 / sBs, 1e-12 * base, base);
-      kernels.scaleAndInvert(b, h, yHy / sy);
+      // bᵢ ← bᵢ + yᵢ²/sᵀy − (bᵢsᵢ)²/sᵀBs (on the scaled diagonal), kept > 1e-12 base and finite
+      const sBs = c * kernels.weightedDot(b, s, s);
+      const yHy = kernels.diagonalUpdate(b, h, s, y, c, 1 / sy, 1 / sBs, 1e-12 * base, base);
+      // then scaled so that yᵀ H0 y = sᵀ y
+      c = yHy / sy;
     },
     apply(v) {
-      kernels.multiply(v, h);
+      kernels.multiplyScaled(v, h, 1 / c);
     },
   };
 }

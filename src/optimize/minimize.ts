@@ -6,7 +6,6 @@
  * @module
  */
 import { vectorWorkspace, type VectorEngine, type VectorKernels } from '../linalg/vector-kernels.js';
-import { maxAtomNorm } from './forces.js';
 import { createInitialMatrix, type InitialMatrixForm } from './initial-matrix.js';
 import { lineSearch } from './line-search.js';
 import type { LineSearchResult } from './line-search.js';
@@ -218,15 +217,22 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
   // Every vector of the run comes from one workspace, so that the kernels can work on them.
   const diagonalH0 = lbfgs && (scaling === 'diagonal' || (scaling === 'block' && n % 3 !== 0));
   const vectorCount =
-    5 + (method === 'fire' ? 1 : 0) + (lbfgs ? 2 * history + 2 : 0) + (diagonalH0 ? 2 : 0) + (preconditioner ? 1 : 0);
+    5 + (method === 'fire' ? 1 : 0) + (lbfgs ? 2 * history + 2 : 0) + (diagonalH0 ? 2 : 0) + (preconditioner ? history + 4 : 0);
   const workspace = vectorWorkspace(n, vectorCount, engine);
   const kernels = workspace.kernels;
   let taken = 0;
   const take = (): Float64Array => workspace.vectors[taken++];
   const dot = kernels.dot;
-  const atoms = Math.ceil(n / 3);
-  /** RMS per-atom norm (as `rmsAtomNorm`, on the kernels). */
-  const rmsOf = (v: Float64Array): number => Math.sqrt(dot(v, v) / atoms);
+  const norms = new Float64Array(2);
+  /** Largest per-atom norm (as `maxAtomNorm`, on the kernels); the RMS is left in norms[1]. */
+  const maxAtomNorm = (v: Float64Array): number => {
+    kernels.atomNorms(v, norms);
+    return norms[0];
+  };
+  const rmsOf = (v: Float64Array): number => {
+    kernels.atomNorms(v, norms);
+    return norms[1];
+  };
 
   let x = take();
   x.set(x0);
@@ -284,11 +290,25 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     lbfgs ? n : 0,
     diagonalH0 ? { kernels, b: take(), h: take() } : { kernels, b: empty, h: empty },
   );
-  // With a preconditioner, H0 is learned from the pairs in whitened form (z = Lᵀ Π x).
+  // With a preconditioner, H0 is learned from the pairs in whitened form (z = Lᵀ Π x):
+  // ĝ = L⁻¹ Π g is kept for the current point and ŷ = L⁻¹ Π y for every stored
+  // pair, so that the first loop's result is whitened by axpys (ŷ = ĝ_new − ĝ_old
+  // needs no sweep) and each step needs one forward and one backward sweep.
   const H0z = createInitialMatrix('scalar', 0, { kernels, b: empty, h: empty });
   const zY = preconditioner ? take() : empty;
+  let gz: Float64Array = preconditioner ? take() : empty;
+  let gzT: Float64Array = preconditioner ? take() : empty;
+  const YZ: Float64Array[] = [];
+  let spareYZ: Float64Array = empty;
+  if (preconditioner) {
+    for (let k = 0; k < history; k++) YZ.push(take());
+    spareYZ = take();
+  }
   let sinceRefresh = 0;
-  if (preconditioner && !preconditioner.update(x)) preconditioner = undefined;
+  if (preconditioner) {
+    if (preconditioner.update(x)) preconditioner.whiten(g, gz);
+    else preconditioner = undefined;
+  }
   let newest = -1;
   let cgSinceRestart = 0;
   let cgPrevStep = 0;
@@ -329,17 +349,20 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
    */
   const lbfgsDirection = (): void => {
     if (pairs === 0) {
-      kernels.scaleDot(d, -1, g, g);
       if (preconditioner) {
         // d = −P⁻¹ g: the model's own Newton-like step
-        preconditioner.whiten(d, zY);
+        kernels.scaleDot(zY, -1, gz, gz);
         preconditioner.unwhiten(zY, d);
+      } else {
+        kernels.scaleDot(d, -1, g, g);
       }
       return;
     }
     const oldest = twoLoopFirst(kernels, d, g, S, Y, rho, alpha, newest, pairs, history);
     if (preconditioner) {
-      preconditioner.whiten(d, zY);
+      // L⁻¹ Π q with q = −g − Σ αₖ yₖ, from ĝ and the ŷₖ
+      kernels.scaleDot(zY, -1, gz, gz);
+      for (let j = 0, k = newest; j < pairs; j++, k = (k - 1 + history) % history) kernels.axpy(zY, -alpha[k], YZ[k]);
       H0z.apply(zY);
       preconditioner.unwhiten(zY, d);
     } else {
@@ -348,17 +371,14 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     twoLoopSecond(kernels, d, S, Y, rho, alpha, oldest, pairs, history);
   };
 
-  /** Teach H0 the pair (s, y), in whitened form when preconditioned. */
-  const learn = (s: Float64Array, y: Float64Array, sy: number, yy: number): void => {
-    if (!preconditioner) {
-      H0.update(s, y, sy, yy);
-      return;
-    }
-    // γ = sᵀy / ŷᵀŷ with ŷ = L⁻¹ Π y (sᵀy is the same in both variables);
-    // on molecule-like models the diagonal form learned in z did no better
-    // and costs one more triangular sweep per step.
-    preconditioner.whiten(y, zY);
-    H0z.update(s, zY, sy, dot(zY, zY));
+  /**
+   * Teach H0 the pair (s, y) (slot `slot`), in whitened form when
+   * preconditioned: γ = sᵀy / ŷᵀŷ (sᵀy is the same in both variables); on
+   * molecule-like models the diagonal form learned in z did no better.
+   */
+  const learn = (s: Float64Array, y: Float64Array, sy: number, yy: number, slot: number): void => {
+    if (!preconditioner) H0.update(s, y, sy, yy);
+    else H0z.update(s, YZ[slot], sy, dot(YZ[slot], YZ[slot]));
   };
 
   const storePair = (): void => {
@@ -369,12 +389,24 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     kernels.differences(s, y, xT, x, gT, g, products);
     const sy = products[0];
     const yy = products[1];
+    const yz = spareYZ;
+    if (preconditioner) {
+      preconditioner.whiten(gT, gzT);
+      kernels.axpyTo(yz, gzT, -1, gz); // ŷ = ĝ_new − ĝ_old
+      const t = gz;
+      gz = gzT;
+      gzT = t;
+    }
     if (!(sy > EPS * yy) || !(yy > 0)) return;
     const slot = (newest + 1) % history;
     spareS = S[slot];
     spareY = Y[slot];
     S[slot] = s;
     Y[slot] = y;
+    if (preconditioner) {
+      spareYZ = YZ[slot];
+      YZ[slot] = yz;
+    }
     rho[slot] = 1 / sy;
     newest = slot;
     if (pairs < history) pairs++;
@@ -382,7 +414,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
       H0.reset();
       H0z.reset();
     }
-    learn(s, y, sy, yy);
+    learn(s, y, sy, yy, slot);
   };
 
   type Outcome = 'accepted' | 'failed' | 'non-finite' | 'budget';
@@ -401,11 +433,16 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
   const stepLbfgs = (): Outcome => {
     if (preconditioner && ++sinceRefresh > refresh) {
       // Rebuild P here; H0 restarts from the newest pair in the new variables.
+      // The stored ŷ are whitened again with the new factor (one sweep each).
       sinceRefresh = 1;
       if (!preconditioner.update(x)) preconditioner = undefined;
+      else {
+        preconditioner.whiten(g, gz);
+        for (let j = 0, k = newest; j < pairs; j++, k = (k - 1 + history) % history) preconditioner.whiten(Y[k], YZ[k]);
+      }
       H0.reset();
       H0z.reset();
-      if (pairs > 0) learn(S[newest], Y[newest], 1 / rho[newest], dot(Y[newest], Y[newest]));
+      if (pairs > 0) learn(S[newest], Y[newest], 1 / rho[newest], dot(Y[newest], Y[newest]), newest);
     }
     for (let attempt = 0; attempt < 2; attempt++) {
       lbfgsDirection();
@@ -546,7 +583,7 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     f = fNew;
     iterations++;
     const mf = maxAtomNorm(g);
-    const rf = rmsOf(g);
+    const rf = norms[1];
     const more = onIteration ? onIteration({ iteration: iterations, evaluations, energy: f, maxForce: mf, rmsForce: rf, x }) : undefined;
     if (mf <= maxForce) return finish('max-force', true);
     if (rmsForce > 0 && rf <= rmsForce) return finish('rms-force', true);

@@ -6,6 +6,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { encodeModule, sleb, uleb } from '../../src/linalg/wasm-encode.js';
+import { maxAtomNorm, rmsAtomNorm } from '../../src/optimize/forces.js';
 import { jsKernels, vectorWorkspace, wasmKernelsAvailable, type VectorWorkspace } from '../../src/linalg/vector-kernels.js';
 
 /** Runs every kernel once on the workspace's first eight vectors; returns the scalars and copies of the vectors. */
@@ -22,13 +23,14 @@ function runAll(ws: VectorWorkspace): { scalars: number[]; vectors: number[][] }
   k.combine(g, -1, f, 0.5);
   k.differences(h, e, a, b, c, d, out);
   scalars.push(out[0], out[1]);
-  k.multiply(a, b);
+  k.multiplyScaled(a, b, 0.5);
   k.scale(b, 3);
   scalars.push(k.weightedDot(a, b, c));
   // some entries of the updated diagonal fall below the floor and take the base value
   for (let i = 0; i < c.length; i++) c[i] = Math.abs(c[i]) - (i % 5 === 0 ? 10 : 0);
-  scalars.push(k.diagonalUpdate(c, a, b, 0.9, 1.1, 1e-3, 7));
-  k.scaleAndInvert(c, d, 2);
+  scalars.push(k.diagonalUpdate(c, d, a, b, 1.5, 0.9, 1.1, 1e-3, 7));
+  k.atomNorms(e, out);
+  scalars.push(out[0], out[1]);
   return { scalars, vectors: ws.vectors.map((v) => Array.from(v)) };
 }
 
@@ -113,15 +115,41 @@ describe('vector kernels', () => {
 
   it('the diagonal update replaces non-finite and too small entries by the base value', () => {
     for (const engine of ['wasm', 'js'] as const) {
-      const ws = vectorWorkspace(8, 3, engine);
-      const [b, s, y] = ws.vectors;
+      const ws = vectorWorkspace(8, 4, engine);
+      const [b, s, y, h] = ws.vectors;
       b.set([1, 1, 1, 1, 1, 1, 1, 1]);
       s.set([0, 0, 0, 0, 1e200, 0, 0, 0]);
       y.set([0, 1, 0, Infinity, 0, 0, 0, 0]);
       // entry 3: y² = ∞ → base; entry 4: (b s)² = ∞ → −∞ → base
-      const r = ws.kernels.diagonalUpdate(b, s, y, 1, 1, 0.5, 7);
+      const r = ws.kernels.diagonalUpdate(b, h, s, y, 1, 1, 1, 0.5, 7);
       expect(Array.from(b)).toEqual([1, 2, 1, 7, 7, 1, 1, 1]);
+      expect(Array.from(h)).toEqual([1, 0.5, 1, 1 / 7, 1 / 7, 1, 1, 1]);
       expect(r).toBe(Infinity); // y₃² / 7
+    }
+  });
+});
+
+describe('atomNorms', () => {
+  it('equals maxAtomNorm and rmsAtomNorm (src/optimize/forces.ts) for every length, NaN included', () => {
+    for (const engine of ['wasm', 'js'] as const) {
+      for (let n = 1; n <= 14; n++) {
+        const ws = vectorWorkspace(n, 1, engine);
+        const [v] = ws.vectors;
+        for (let i = 0; i < n; i++) v[i] = ((i * 7) % 11) - 5;
+        const out = new Float64Array(2);
+        ws.kernels.atomNorms(v, out);
+        expect(out[0]).toBe(maxAtomNorm(v));
+        expect(out[1]).toBeCloseTo(rmsAtomNorm(v), 14);
+        v[n - 1] = NaN;
+        ws.kernels.atomNorms(v, out);
+        expect(out[0]).toBeNaN();
+        if (n > 3) {
+          v[n - 1] = 0;
+          v[0] = NaN; // a NaN before later finite atoms is not lost
+          ws.kernels.atomNorms(v, out);
+          expect(out[0]).toBeNaN();
+        }
+      }
     }
   });
 });
