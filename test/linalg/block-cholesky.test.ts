@@ -123,3 +123,30 @@ describe('BlockCholesky', () => {
     expect(f.factor(diagonal, pairs, off)).toBe(true);
   });
 });
+
+describe('BlockCholesky: WebAssembly and JavaScript sweeps', () => {
+  it('give identical results (the same formulas in the same order)', () => {
+    const rand = createRandom(77);
+    for (const atoms of [1, 2, 7, 40]) {
+      const { pairs, diagonal, off, n } = randomSpd(rand, atoms, 3 * atoms);
+      const w = new BlockCholesky(atoms, pairs);
+      const j = new BlockCholesky(atoms, pairs, 'js');
+      expect(w.factor(diagonal, pairs, off)).toBe(true);
+      expect(j.factor(diagonal, pairs, off)).toBe(true);
+      const v = Float64Array.from({ length: n }, () => rand.uniform(-1, 1));
+      const [a, b, c, d, e, f] = Array.from({ length: 6 }, () => new Float64Array(n));
+      w.whiten(v, a);
+      j.whiten(v, b);
+      expect(Array.from(a)).toEqual(Array.from(b));
+      w.unwhiten(Float64Array.from(v), c);
+      j.unwhiten(Float64Array.from(v), d);
+      expect(Array.from(c)).toEqual(Array.from(d));
+      w.stretch(v, e);
+      j.stretch(v, f);
+      expect(Array.from(e)).toEqual(Array.from(f));
+      // and unwhiten ∘ stretch is the identity to rounding (Πᵀ L⁻ᵀ Lᵀ Π v = v)
+      w.unwhiten(e, a);
+      for (let i = 0; i < n; i++) expect(a[i]).toBeCloseTo(v[i], 10);
+    }
+  });
+});
