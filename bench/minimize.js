@@ -186,22 +186,28 @@ for (const carbons of [10, 100, 1000]) {
   }
 }
 
-// Overhead on the same 3000-atom skeleton with Lennard-Jones pairs (10 Å cutoff) in place of the
-// restraints: a per-atom energy cost like that of a real force field (1500 steps, not to convergence).
-{
-  const model = parseModel(moleculeLikeModel({ carbons: 1000, seed: 1, lennardJones: true }));
+// Overhead per iteration at a fixed 1500 steps (not to convergence), for both vector engines
+// (minimize's `engine` option): on the 3000-atom restraint model above, and on the same
+// skeleton with Lennard-Jones pairs (10 Å cutoff) in place of the restraints, a per-atom
+// energy cost like that of a real force field.
+for (const lennardJones of [false, true]) {
+  const model = parseModel(moleculeLikeModel({ carbons: 1000, seed: 1, lennardJones }));
   const energy = (x, g) => model.energy(x, g);
-  const parts = [];
-  for (const [name, pre] of [['lbfgs', undefined], ['lbfgs+pre', stiffTermPreconditioner(model.atomCount, model.tables, model.frozen)], ['cg', undefined]]) {
-    let inside = 0, evals = 0;
-    const fn = (x, g) => { evals++; const t = performance.now(); const e = energy(x, g); inside += performance.now() - t; return e; };
-    const t0 = performance.now();
-    const r = minimize(fn, model.coordinates, { method: name === 'cg' ? 'cg' : 'lbfgs', maxForce: MAX_FORCE, maxIterations: 1500, preconditioner: pre });
-    const ms = performance.now() - t0;
-    const perIt = (ms - inside) / r.iterations, perEval = inside / evals;
-    parts.push(`${name}: ${((100 * perIt) / perEval).toFixed(1)}% (${(perIt * 1000).toFixed(0)} us/iter vs ${(perEval * 1000).toFixed(0)} us per evaluation)`);
+  const lines = [];
+  for (const engine of ['wasm', 'js']) {
+    const parts = [];
+    for (const [name, pre] of [['lbfgs', undefined], ['lbfgs+pre', stiffTermPreconditioner(model.atomCount, model.tables, model.frozen)], ['cg', undefined]]) {
+      let inside = 0, evals = 0;
+      const fn = (x, g) => { evals++; const t = performance.now(); const e = energy(x, g); inside += performance.now() - t; return e; };
+      const t0 = performance.now();
+      const r = minimize(fn, model.coordinates, { method: name === 'cg' ? 'cg' : 'lbfgs', maxForce: MAX_FORCE, maxIterations: 1500, preconditioner: pre, engine });
+      const ms = performance.now() - t0;
+      const perIt = (ms - inside) / r.iterations, perEval = inside / evals;
+      parts.push(`${name}: ${((100 * perIt) / perEval).toFixed(1)}% (${(perIt * 1000).toFixed(0)} us/iter vs ${(perEval * 1000).toFixed(0)} us per evaluation)`);
+    }
+    lines.push(`  engine '${engine}': ${parts.join('; ')}`);
   }
-  overhead += `\nWith Lennard-Jones pairs (10 Å cutoff) instead of restraints, ${model.atomCount} atoms, 1500 steps: ${parts.join('; ')}`;
+  overhead += `\nOverhead at 1500 steps, ${model.atomCount} atoms, ${lennardJones ? 'Lennard-Jones pairs (10 Å cutoff) instead of restraints' : 'restraint model'}:\n${lines.join('\n')}`;
 }
 
 const head = ['atoms', 'method', 'converged', 'evals', 'max force', 'energy', 'wall ms (median of 3)'];

@@ -57,11 +57,12 @@ export class BlockCholesky {
    * @param atoms - number of atoms N (the matrix is 3N × 3N).
    * @param pairs - `2 × P` atom pairs whose off-diagonal block may be non-zero
    *   (order and repeats do not matter; i = j pairs are ignored).
-   * @param engine - `'wasm'` (default): the sweeps run as WebAssembly loops
-   *   where available (src/linalg/block-sweeps.ts; identical results);
-   *   `'js'`: in JavaScript.
+   * @param engine - `'wasm'`: the sweeps run as WebAssembly loops where
+   *   available (src/linalg/block-sweeps.ts; identical results); `'js'`: in
+   *   JavaScript. Default: `'wasm'` from 32 atoms on (below, copying in and
+   *   out of its memory costs more than it saves).
    */
-  constructor(atoms: number, pairs: Int32Array, engine: 'wasm' | 'js' = 'wasm') {
+  constructor(atoms: number, pairs: Int32Array, engine: 'wasm' | 'js' = atoms >= 32 ? 'wasm' : 'js') {
     this.atoms = atoms;
     const adjacency: Set<number>[] = Array.from({ length: atoms }, () => new Set<number>());
     for (let p = 0; p + 1 < pairs.length; p += 2) {
