@@ -16,7 +16,7 @@
  * vectors.
  * @module
  */
-import { encodeModule, F64, I32, op, type WasmFunction } from './wasm-encode.js';
+import { compileModule, F64, I32, instantiate, op, type WasmFunction } from './wasm-encode.js';
 
 const { localGet: get, localSet: set, localTee: tee, i32Const: int, i32Add, i32Mul, i32GeS, i32LtS, i32Load, f64Load, f64Store, f64Add, f64Sub, f64Mul, block, loop, end, br, brIf } = op;
 
@@ -151,26 +151,9 @@ const unwhiten: WasmFunction = {
   ],
 };
 
-interface WasmApi {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object, imports: object) => { exports: unknown };
-  Memory: new (descriptor: { initial: number; maximum?: number }) => { buffer: ArrayBuffer };
-}
-const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
-
 type Sweep = (atoms: number, order: number, start: number, rows: number, pivots: number, inverse: number, blocks: number, vin: number, vout: number) => void;
 
 let compiled: object | null | undefined;
-function sweepModule(): object | null {
-  if (compiled === undefined) {
-    try {
-      compiled = wasm === undefined ? null : new wasm.Module(encodeModule([whiten, unwhiten]));
-    } catch {
-      compiled = null;
-    }
-  }
-  return compiled;
-}
 
 /** The arrays of a factor in one WebAssembly memory, and the sweeps over them. */
 export interface SweepArrays {
@@ -191,8 +174,8 @@ export interface SweepArrays {
 
 /** Allocate the arrays for `atoms` atoms and `blocks` stored blocks; null where WebAssembly is not available. */
 export function sweepArrays(atoms: number, blocks: number): SweepArrays | null {
-  const module = sweepModule();
-  if (module === null || wasm === undefined) return null;
+  if (compiled === undefined) compiled = compileModule([whiten, unwhiten]);
+  if (compiled === null) return null;
   const sizes = [4 * atoms, 4 * (atoms + 1), 4 * blocks, 72 * atoms, 24 * atoms, 72 * blocks, 24 * atoms, 24 * atoms];
   const offsets: number[] = [];
   let total = 0;
@@ -200,16 +183,10 @@ export function sweepArrays(atoms: number, blocks: number): SweepArrays | null {
     offsets.push(total);
     total += Math.ceil(s / 16) * 16;
   }
-  const pages = Math.max(1, Math.ceil(total / 65536));
-  let exports: { whiten: Sweep; unwhiten: Sweep };
-  let buffer: ArrayBuffer;
-  try {
-    const memory = new wasm.Memory({ initial: pages, maximum: pages });
-    exports = new wasm.Instance(module, { env: { memory } }).exports as { whiten: Sweep; unwhiten: Sweep };
-    buffer = memory.buffer;
-  } catch {
-    return null;
-  }
+  const made = instantiate(compiled, total);
+  if (made === null) return null;
+  const exports = made.exports as { whiten: Sweep; unwhiten: Sweep };
+  const buffer = made.buffer;
   const [oOrder, oStart, oRows, oPivots, oInverse, oBlocks, oIn, oOut] = offsets;
   const run = (f: Sweep): void => f(atoms, oOrder, oStart, oRows, oPivots, oInverse, oBlocks, oIn, oOut);
   return {

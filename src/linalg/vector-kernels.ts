@@ -21,7 +21,7 @@
  * array. Kernels never allocate.
  * @module
  */
-import { encodeModule, F64, I32, op, V128, type WasmFunction } from './wasm-encode.js';
+import { compileModule, F64, I32, instantiate, op, V128, type WasmFunction } from './wasm-encode.js';
 
 /** Which implementation a workspace uses. */
 export type VectorEngine = 'wasm' | 'js';
@@ -390,14 +390,6 @@ interface WasmExports {
   atomNorms(v: number, bytes: number): number;
 }
 
-/** The part of the WebAssembly JavaScript API used here (declared locally: the project's `lib` has no DOM types). */
-interface WasmApi {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object, imports: object) => { exports: unknown };
-  Memory: new (descriptor: { initial: number; maximum?: number }) => { buffer: ArrayBuffer };
-}
-const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
-
 /**
  * (v, bytes) → the largest of x² + y² + z² over the triples in [0, bytes)
  * (NaN propagates through f64.max), with Σ stored as f64 at address 8.
@@ -427,12 +419,7 @@ let compiled: object | null | undefined;
 
 /** The compiled module, or null where WebAssembly (with SIMD) is not available. */
 function wasmModule(): object | null {
-  if (compiled !== undefined) return compiled;
-  try {
-    compiled = wasm === undefined ? null : new wasm.Module(encodeModule([...STREAMS.map(stream), atomNormsFunction()]));
-  } catch {
-    compiled = null;
-  }
+  if (compiled === undefined) compiled = compileModule([...STREAMS.map(stream), atomNormsFunction()]);
   return compiled;
 }
 
@@ -444,20 +431,13 @@ export function wasmKernelsAvailable(): boolean {
 /** Bytes reserved at the start of the memory (the second sum of a kernel is stored at 8). */
 const RESERVED = 64;
 
-function wasmWorkspace(api: WasmApi, module: object, n: number, count: number): VectorWorkspace | null {
+function wasmWorkspace(module: object, n: number, count: number): VectorWorkspace | null {
   // Each vector starts on a 64-byte boundary.
   const stride = Math.ceil((8 * n) / 64) * 64;
-  const total = RESERVED + stride * count;
-  const pages = Math.max(1, Math.ceil(total / 65536));
-  let memory: { buffer: ArrayBuffer };
-  let w: WasmExports;
-  try {
-    memory = new api.Memory({ initial: pages, maximum: pages });
-    w = new api.Instance(module, { env: { memory } }).exports as WasmExports;
-  } catch {
-    return null; // e.g. more memory than the engine allows: use the JS engine
-  }
-  const buffer = memory.buffer;
+  const made = instantiate(module, RESERVED + stride * count);
+  if (made === null) return null; // e.g. more memory than the engine allows: use the JS engine
+  const w = made.exports as WasmExports;
+  const buffer = made.buffer;
   const vectors: Float64Array<ArrayBuffer>[] = [];
   for (let k = 0; k < count; k++) vectors.push(new Float64Array(buffer, RESERVED + k * stride, n));
   const second = new Float64Array(buffer, 8, 1);
@@ -550,7 +530,7 @@ function wasmWorkspace(api: WasmApi, module: object, n: number, count: number): 
 export function vectorWorkspace(n: number, count: number, engine: VectorEngine = 'wasm'): VectorWorkspace {
   if (engine === 'wasm' && n >= 4) {
     const module = wasmModule();
-    const ws = module === null || wasm === undefined ? null : wasmWorkspace(wasm, module, n, count);
+    const ws = module === null ? null : wasmWorkspace(module, n, count);
     if (ws !== null) return ws;
   }
   const vectors: Float64Array<ArrayBuffer>[] = [];

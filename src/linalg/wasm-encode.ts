@@ -100,6 +100,42 @@ export function encodeModule(functions: readonly WasmFunction[], minPages = 1): 
   return new Uint8Array([0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00, ...types, ...imports, ...declared, ...exports, ...code]);
 }
 
+/** The part of the WebAssembly JavaScript API the project uses (declared here: its `lib` has no DOM types). */
+export interface WasmApi {
+  Module: new (bytes: Uint8Array) => object;
+  Instance: new (module: object, imports: object) => { exports: unknown };
+  Memory: new (descriptor: { initial: number; maximum?: number }) => { buffer: ArrayBuffer };
+}
+
+/** The engine's WebAssembly API, or undefined where there is none. */
+export const wasmApi: WasmApi | undefined = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
+
+/** Compile functions into a module, or null when this engine cannot (no WebAssembly, or no SIMD). */
+export function compileModule(functions: readonly WasmFunction[]): object | null {
+  if (wasmApi === undefined) return null;
+  try {
+    return new wasmApi.Module(encodeModule(functions));
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * A fixed-size memory of at least `bytes` bytes and an instance of `module`
+ * on it, or null when the engine refuses (for example more than it allows).
+ */
+export function instantiate(module: object, bytes: number): { buffer: ArrayBuffer; exports: unknown } | null {
+  if (wasmApi === undefined) return null;
+  const pages = Math.max(1, Math.ceil(bytes / 65536));
+  try {
+    const memory = new wasmApi.Memory({ initial: pages, maximum: pages });
+    const instance = new wasmApi.Instance(module, { env: { memory } });
+    return { buffer: memory.buffer, exports: instance.exports };
+  } catch {
+    return null;
+  }
+}
+
 const simd = (code: number): number[] => [0xfd, ...uleb(code)];
 
 /** Instructions (each a byte list), named after the specification's mnemonics. */
