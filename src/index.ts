@@ -144,3 +144,5 @@ export { readXyz, writeXyz, writeXyzFrames } from './io/xyz.js';
 export { STRUCTURE_FORMATS, structureFormatFor } from './io/structure-format.js';
 export type { StructureFormat } from './io/structure-format.js';
 export { BlockCholesky } from './linalg/block-cholesky.js';
+export { vectorWorkspace, wasmKernelsAvailable, jsKernels } from './linalg/vector-kernels.js';
+export type { VectorEngine, VectorKernels, VectorWorkspace } from './linalg/vector-kernels.js';
