@@ -37,6 +37,8 @@ export interface VectorKernels {
   scaleDot(d: Float64Array, c: number, g: Float64Array, z: Float64Array): number;
   /** d ← d + c x. */
   axpy(d: Float64Array, c: number, x: Float64Array): void;
+  /** d ← d + a x + b y (two updates in one pass). */
+  axpy2(d: Float64Array, a: number, x: Float64Array, b: number, y: Float64Array): void;
   /** out ← a + c b. */
   axpyTo(out: Float64Array, a: Float64Array, c: number, b: Float64Array): void;
   /** d ← a g + b d. */
@@ -120,6 +122,9 @@ export const jsKernels: VectorKernels = {
   },
   axpy(d, c, x) {
     for (let i = 0; i < d.length; i++) d[i] += c * x[i];
+  },
+  axpy2(d, a, x, b, y) {
+    for (let i = 0; i < d.length; i++) d[i] += a * x[i] + b * y[i];
   },
   axpyTo(out, a, c, b) {
     for (let i = 0; i < out.length; i++) out[i] = a[i] + c * b[i];
@@ -317,6 +322,15 @@ const STREAMS: Stream[] = [
     step: (c, o) => [...c.address(0), ...c.load(0, o), ...c.scalar(0), ...c.load(1, o), ...mul, ...add, ...c.store(o)],
   },
   {
+    // (d, x, y; a, b): d ← d + (a x + b y)
+    name: 'axpy2', pointers: 3, scalars: 2, sums: 0, temps: 0,
+    step: (c, o) => [
+      ...c.address(0), ...c.load(0, o),
+      ...c.scalar(0), ...c.load(1, o), ...mul, ...c.scalar(1), ...c.load(2, o), ...mul, ...add,
+      ...add, ...c.store(o),
+    ],
+  },
+  {
     // (out, a, b; c): out ← a + c b
     name: 'axpyTo', pointers: 3, scalars: 1, sums: 0, temps: 0,
     step: (c, o) => [...c.address(0), ...c.load(1, o), ...c.scalar(0), ...c.load(2, o), ...mul, ...add, ...c.store(o)],
@@ -377,6 +391,7 @@ interface WasmExports {
   axpyDot(d: number, x: number, z: number, bytes: number, c: number): number;
   scaleDot(d: number, g: number, z: number, bytes: number, c: number): number;
   axpy(d: number, x: number, bytes: number, c: number): void;
+  axpy2(d: number, x: number, y: number, bytes: number, a: number, b: number): void;
   axpyTo(out: number, a: number, b: number, bytes: number, c: number): void;
   combine(d: number, g: number, bytes: number, a: number, b: number): void;
   differences(s: number, y: number, xn: number, xo: number, gn: number, go: number, bytes: number): number;
@@ -473,6 +488,10 @@ function wasmWorkspace(module: object, n: number, count: number): VectorWorkspac
     axpy(d, c, x) {
       w.axpy(d.byteOffset, x.byteOffset, bytes, c);
       for (let i = body; i < n; i++) d[i] += c * x[i];
+    },
+    axpy2(d, a, x, b, y) {
+      w.axpy2(d.byteOffset, x.byteOffset, y.byteOffset, bytes, a, b);
+      for (let i = body; i < n; i++) d[i] += a * x[i] + b * y[i];
     },
     axpyTo(out, a, c, b) {
       w.axpyTo(out.byteOffset, a.byteOffset, b.byteOffset, bytes, c);

@@ -367,7 +367,14 @@ export function minimize(fn: ObjectiveFunction, x0: Float64Array, options: Minim
     if (preconditioner) {
       // L⁻¹ Π q with q = −g − Σ αₖ yₖ, from ĝ and the ŷₖ
       kernels.scaleDot(zY, -1, gz, gz);
-      for (let j = 0, k = newest; j < pairs; j++, k = (k - 1 + history) % history) kernels.axpy(zY, -alpha[k], YZ[k]);
+      let k = newest;
+      let j = 0;
+      for (; j + 1 < pairs; j += 2) {
+        const k2 = (k - 1 + history) % history;
+        kernels.axpy2(zY, -alpha[k], YZ[k], -alpha[k2], YZ[k2]);
+        k = (k2 - 1 + history) % history;
+      }
+      if (j < pairs) kernels.axpy(zY, -alpha[k], YZ[k]);
       H0z.apply(zY);
       preconditioner.unwhiten(zY, d);
     } else {

@@ -19,6 +19,7 @@ function runAll(ws: VectorWorkspace): { scalars: number[]; vectors: number[][] }
   scalars.push(k.axpyDot(c, 0.7, a, b));
   scalars.push(k.scaleDot(d, -1.3, a, c));
   k.axpy(e, 0.25, d);
+  k.axpy2(e, -0.5, a, 1.5, b);
   k.axpyTo(f, a, 2.5, e);
   k.combine(g, -1, f, 0.5);
   k.differences(h, e, a, b, c, d, out);
