@@ -133,18 +133,7 @@ export const jsKernels: VectorKernels = {
     for (let i = 0; i < d.length; i++) d[i] = a * g[i] + b * d[i];
   },
   differences(s, y, xNew, xOld, gNew, gOld, out) {
-    let sy = 0;
-    let yy = 0;
-    for (let i = 0; i < s.length; i++) {
-      const si = xNew[i] - xOld[i];
-      const yi = gNew[i] - gOld[i];
-      s[i] = si;
-      y[i] = yi;
-      sy += si * yi;
-      yy += yi * yi;
-    }
-    out[0] = sy;
-    out[1] = yy;
+    differencesTail(s, y, xNew, xOld, gNew, gOld, out, 0, 0, 0);
   },
   multiplyScaled(v, h, c) {
     for (let i = 0; i < v.length; i++) v[i] = c * (v[i] * h[i]);
@@ -164,6 +153,33 @@ export const jsKernels: VectorKernels = {
     atomNormsTail(v, out, 0, 0, 0);
   },
 };
+
+/** {@link VectorKernels.differences} from entry `from` on, given the sums so far. */
+function differencesTail(
+  s: Float64Array,
+  y: Float64Array,
+  xNew: Float64Array,
+  xOld: Float64Array,
+  gNew: Float64Array,
+  gOld: Float64Array,
+  out: Float64Array,
+  from: number,
+  sySoFar: number,
+  yySoFar: number,
+): void {
+  let sy = sySoFar;
+  let yy = yySoFar;
+  for (let i = from; i < s.length; i++) {
+    const si = xNew[i] - xOld[i];
+    const yi = gNew[i] - gOld[i];
+    s[i] = si;
+    y[i] = yi;
+    sy += si * yi;
+    yy += yi * yi;
+  }
+  out[0] = sy;
+  out[1] = yy;
+}
 
 /** The diagonal update over entries [from, to); returns its part of Σ yᵢ² / bᵢ. */
 function diagonalTail(
@@ -502,18 +518,8 @@ function wasmWorkspace(module: object, n: number, count: number): VectorWorkspac
       for (let i = body; i < n; i++) d[i] = a * g[i] + b * d[i];
     },
     differences(s, y, xNew, xOld, gNew, gOld, out) {
-      let sy = w.differences(s.byteOffset, y.byteOffset, xNew.byteOffset, xOld.byteOffset, gNew.byteOffset, gOld.byteOffset, bytes);
-      let yy = second[0];
-      for (let i = body; i < n; i++) {
-        const si = xNew[i] - xOld[i];
-        const yi = gNew[i] - gOld[i];
-        s[i] = si;
-        y[i] = yi;
-        sy += si * yi;
-        yy += yi * yi;
-      }
-      out[0] = sy;
-      out[1] = yy;
+      const sy = w.differences(s.byteOffset, y.byteOffset, xNew.byteOffset, xOld.byteOffset, gNew.byteOffset, gOld.byteOffset, bytes);
+      differencesTail(s, y, xNew, xOld, gNew, gOld, out, body, sy, second[0]);
     },
     multiplyScaled(v, h, c) {
       w.multiplyScaled(v.byteOffset, h.byteOffset, bytes, c);
